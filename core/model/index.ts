@@ -1,2 +1,2 @@
-export type { Scalar, Unit, Pulses, Events, Trials, Recording, Warning } from './types';
+export type { Scalar, Unit, Pulses, Events, Trials, Recording, Warning, RawSource } from './types';
 export { emptyPulses, emptyEvents, emptyTrials } from './empty';

@@ -73,6 +73,28 @@ export interface Recording {
   readonly spanSource: 'manifest' | 'observation-intervals' | 'inputs';
   /** Sample rate of waveformMean samples, Hz (NaN when there are no waveforms). */
   readonly waveformSampleRateHz: number;
+  /** Raw extracellular voltage, when the session names a raw binary file. */
+  readonly raw?: RawSource;
+}
+
+/**
+ * Random access to a raw interleaved int16 recording (frames x channels),
+ * read by offset, never loaded whole. The edge (Node: fs.readSync; browser
+ * worker: FileReaderSync) implements readFrames; core only calls it.
+ */
+export interface RawSource {
+  /** File name as the user gave it. */
+  readonly file: string;
+  readonly channelCount: number;
+  readonly sampleRateHz: number;
+  /** Microvolts per integer step. */
+  readonly gainUvPerBit: number;
+  /** Number of frames (samples per channel) in the file. */
+  readonly frameCount: number;
+  /** Time of frame 0 on the recording clock, s. */
+  readonly startS: number;
+  /** Frames [startFrame, startFrame + frameCount) interleaved by channel; clipped at the file's ends. */
+  readFrames(startFrame: number, frameCount: number): Int16Array;
 }
 
 /** A benign problem found in the inputs, counted and written to run.json. */
