@@ -93,7 +93,7 @@ export function sessionFiles(sim: SimulatedSession, options: SessionFileOptions 
     for (const u of rec.units) rows.push(`${u.id},${u.meta.channel ?? ''},${u.meta.depth_um ?? ''}`);
     files.push({ name: 'unit_info.csv', data: rows.join('\n') + '\n' });
     files.push({ name: 'waveforms.npy', data: encodeNpy(sim.waveforms, [rec.units.length, sim.spec.waveformSamples]) });
-    manifest.waveforms = { file: 'waveforms.npy', sample_rate: sim.spec.waveformSampleRateHz, unit: 'uV' };
+    manifest.waveforms = { file: 'waveforms.npy', sample_rate: sim.spec.waveformSampleRateHz };
   }
   files.push({ name: 'session.json', data: JSON.stringify(manifest, null, 2) + '\n' });
   return files;

@@ -48,7 +48,7 @@ describe('demo session', () => {
     const manifest = JSON.parse(text('session.json'));
     expect(manifest.parameters.span.startS).toBe(0);
     expect(manifest.parameters.span.stopS).toBeCloseTo(demo.sim.recording.span[1], 5);
-    expect(manifest.waveforms).toEqual({ file: 'waveforms.npy', sample_rate: 30000, unit: 'uV' });
+    expect(manifest.waveforms).toEqual({ file: 'waveforms.npy', sample_rate: 30000 });
     const bytes = demo.session.reduce((a, f) => a + (typeof f.data === 'string' ? Buffer.byteLength(f.data) : f.data.length), 0);
     expect(bytes).toBeLessThan(5 * 1024 * 1024);
     // every row of every CSV has as many cells as its header
