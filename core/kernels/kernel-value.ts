@@ -25,7 +25,7 @@ export function kernelValue(kernel: Kernel): (t: number) => number {
       return (t) => {
         if (t !== t) return NaN;
         const u = t * sampleRateHz;
-        if (u < 0 || u > n - 1) return 0;
+        if (u < 0 || u >= n) return 0;
         const i = Math.floor(u);
         const f = u - i;
         const a = values[i];

@@ -111,11 +111,11 @@ function alphaSum(spikes: ArrayLike<number>, tau: number, g: SampleGrid, scale: 
 function sampledPredict(spikes: ArrayLike<number>, kernel: Kernel & { kind: 'sampled' }, g: SampleGrid, weight: number): Float64Array {
   const rate = g.rateHz;
   const hv = kernelValue(kernel);
-  const durS = (kernel.values.length - 1) / kernel.sampleRateHz;
-  const m = Math.max(1, Math.floor(durS * rate + 1e-9) + 1);
+  // Output-rate samples j with j / rate inside the kernel's support [0, n / kernelRate).
+  const m = Math.max(1, Math.ceil((kernel.values.length * rate) / kernel.sampleRateHz - 1e-9));
   const kr = new Float64Array(m);
   for (let j = 0; j < m; j++) kr[j] = hv(j / rate);
-  const pad = m; // earlier samples whose spikes still reach the grid
+  const pad = m + 1; // earlier samples whose spikes still reach the grid
   const len = g.length + pad;
   const dep = new Float64Array(len);
   const t0 = g.startS - pad / rate;
@@ -127,9 +127,13 @@ function sampledPredict(spikes: ArrayLike<number>, kernel: Kernel & { kind: 'sam
   const early = new Float64Array(len);
   const n = spikes.length;
   for (let i = lowerBound(spikes, t0); i < n && spikes[i] <= tEnd; i++) {
-    const u = (spikes[i] - t0) * rate;
-    const k = Math.floor(u);
-    const f = u - k;
+    // Position in samples; a spike within 1e-9 sample of a sample sits on it
+    // (the kernel may jump at t = 0, so rounding must not decide its side).
+    const u = (spikes[i] - g.startS) * rate + pad;
+    const ur = Math.round(u);
+    const onSample = Math.abs(u - ur) < 1e-9;
+    const k = onSample ? ur : Math.floor(u);
+    const f = onSample ? 0 : u - k;
     if (k >= 0 && k < len) {
       dep[k] += 1 - f;
       if (f > 0) early[k] += 1 - f;

@@ -6,8 +6,8 @@
  *   where hPeak is the unscaled value at the peak, so max h = peakDff.
  * - alpha: h(t) = peakDff * (t/tauS) * exp(1 - t/tauS); peak at t = tauS.
  * - sampled: values[j] at t = j / sampleRateHz, linearly interpolated between
- *   samples, 0 before t = 0 and after the last sample (causal: a spike
- *   never shows before it happens); multiplied by `gain`.
+ *   samples and down to 0 one sample after the last one; 0 before t = 0
+ *   (causal: a spike never shows before it happens); multiplied by `gain`.
  *
  * peakDff is the single-spike peak dF/F as a fraction (0.41 = 41 %). When it
  * is not published, library kernels use 1 and say so (`amplitudeKnown`):
