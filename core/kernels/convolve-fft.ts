@@ -16,7 +16,8 @@ export function convolveFft(signal: ArrayLike<number>, kernel: ArrayLike<number>
   const out = new Float64Array(n + m - 1);
   let nfft = 1;
   while (nfft < 2 * m) nfft <<= 1;
-  nfft = Math.max(nfft, Math.min(1 << 16, nextPow2(n + m - 1)), 64);
+  // Long signals: blocks of up to 2^15 points amortise each FFT (cost per output ~ log nfft).
+  nfft = Math.max(nfft, Math.min(1 << 15, nextPow2(n + m - 1)), 64);
   const block = nfft - m + 1;
   const kr = new Float64Array(nfft);
   const ki = new Float64Array(nfft);

@@ -4,7 +4,8 @@
  * Forward: X[k] = sum_n x[n] exp(-2 pi i k n / N). Inverse (inverse = true):
  * the conjugate transform divided by N, so fft(fft(x), inverse) = x.
  * Same conventions as fft.js (checked against it in the tests). Twiddles are
- * computed per stage by direct cos/sin (not recurrence) for accuracy.
+ * direct cos/sin values (not a recurrence, for accuracy), computed once per
+ * size and kept (a pure cache: same input, same output).
  */
 export function fft(re: Float64Array, im: Float64Array, inverse = false): void {
   const n = re.length;
@@ -26,13 +27,7 @@ export function fft(re: Float64Array, im: Float64Array, inverse = false): void {
     }
   }
   const sign = inverse ? 1 : -1;
-  const cosT = new Float64Array(n >> 1);
-  const sinT = new Float64Array(n >> 1);
-  for (let k = 0; k < n >> 1; k++) {
-    const a = (2 * Math.PI * k) / n;
-    cosT[k] = Math.cos(a);
-    sinT[k] = sign * Math.sin(a);
-  }
+  const { cosT, sinT } = twiddles(n);
   for (let size = 2; size <= n; size <<= 1) {
     const half = size >> 1;
     const step = n / size;
@@ -41,7 +36,7 @@ export function fft(re: Float64Array, im: Float64Array, inverse = false): void {
         const i = start + k;
         const j = i + half;
         const wr = cosT[t];
-        const wi = sinT[t];
+        const wi = sign * sinT[t];
         const xr = re[j] * wr - im[j] * wi;
         const xi = re[j] * wi + im[j] * wr;
         re[j] = re[i] - xr;
@@ -58,4 +53,23 @@ export function fft(re: Float64Array, im: Float64Array, inverse = false): void {
       im[i] *= s;
     }
   }
+}
+
+const TWIDDLES = new Map<number, { cosT: Float64Array; sinT: Float64Array }>();
+
+function twiddles(n: number): { cosT: Float64Array; sinT: Float64Array } {
+  let t = TWIDDLES.get(n);
+  if (!t) {
+    const cosT = new Float64Array(n >> 1);
+    const sinT = new Float64Array(n >> 1);
+    for (let k = 0; k < n >> 1; k++) {
+      const a = (2 * Math.PI * k) / n;
+      cosT[k] = Math.cos(a);
+      sinT[k] = Math.sin(a);
+    }
+    t = { cosT, sinT };
+    if (TWIDDLES.size > 32) TWIDDLES.clear();
+    TWIDDLES.set(n, t);
+  }
+  return t;
 }

@@ -11,7 +11,7 @@ export { convolveFft } from './convolve-fft';
 export { predictTrace } from './predict-trace';
 export { predictTraceDirect } from './predict-trace-direct';
 export { predictTrialWindows } from './predict-trial-windows';
-export { poolSpikeTrains } from './pool-spike-trains';
+export { predictTrains } from './predict-trains';
 export { hillSaturation } from './hill-saturation';
 export { resampleLinear } from './resample-linear';
 export { fitAmplitudeOffset, type AmplitudeFit } from './fit-amplitude-offset';

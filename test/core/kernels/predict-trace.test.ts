@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { poolSpikeTrains } from '../../../core/kernels/pool-spike-trains';
 import { predictTrace } from '../../../core/kernels/predict-trace';
 import { predictTraceDirect } from '../../../core/kernels/predict-trace-direct';
+import { predictTrains } from '../../../core/kernels/predict-trains';
 import { predictTrialWindows } from '../../../core/kernels/predict-trial-windows';
 import type { Kernel } from '../../../core/kernels/types';
 import { Rng } from '../../../core/random/rng';
@@ -43,6 +43,12 @@ describe('predictTrace: exact recursive filtering', () => {
     const tp = (0.0106 * 0.0809 * Math.log(0.0809 / 0.0106)) / (0.0809 - 0.0106);
     const y = predictTrace([1 - tp], { kind: 'double-exponential', tauRiseS: 0.0106, tauDecayS: 0.0809, peakDff: 0.41 }, { startS: 0, rateHz: 1000, length: 1001 });
     expectClose(y[1000], 0.41, 1e-12, 'peak dF/F');
+  });
+  it('spikes exactly on samples and just either side of them agree with direct summation', () => {
+    const k: Kernel = { kind: 'alpha', tauS: 0.05, peakDff: 1 };
+    const g = { startS: 0.3, rateHz: 10, length: 30 };
+    const sp = [0.3, 0.5, 0.5 + 1e-15, 0.7 - 1e-15, 1.2, 1.2000001];
+    expect(maxAbsDiff(predictTrace(sp, k, g), predictTraceDirect(sp, k, g))).toBeLessThanOrEqual(1e-12);
   });
   it('is causal: nothing before the spike, and a spike exactly on a sample adds h(0) = 0', () => {
     const y = predictTrace([0.5], { kind: 'double-exponential', tauRiseS: 0.01, tauDecayS: 0.1, peakDff: 1 }, { startS: 0, rateHz: 100, length: 60 });
@@ -99,13 +105,17 @@ describe('population and trial windows', () => {
   const k: Kernel = { kind: 'double-exponential', tauRiseS: 0.02, tauDecayS: 0.2, peakDff: 1 };
   const grid = { startS: 0, rateHz: 40, length: 400 };
   it('population average = mean of the units traces (linearity)', () => {
-    const pooled = predictTrace(poolSpikeTrains(trains), k, grid, 1 / trains.length);
+    const pooled = predictTrains(trains, k, grid, 1 / trains.length);
     const mean = new Float64Array(grid.length);
     for (const t of trains) predictTrace(t, k, grid).forEach((v, i) => (mean[i] += v / trains.length));
     expect(maxAbsDiff(pooled, mean)).toBeLessThanOrEqual(1e-12 * maxAbs(mean));
   });
-  it('poolSpikeTrains sorts and drops NaN', () => {
-    expect([...poolSpikeTrains([Float64Array.of(1, 3), [2, NaN], []])]).toEqual([1, 2, 3]);
+  it('population average of a sampled kernel equals the mean of the units traces', () => {
+    const sk: Kernel = { kind: 'sampled', values: Float64Array.from({ length: 100 }, (_, j) => Math.exp(-j / 20)), sampleRateHz: 40, gain: 1 };
+    const pooled = predictTrains(trains, sk, grid, 0.5);
+    const sumOf = new Float64Array(grid.length);
+    for (const t of trains) predictTrace(t, sk, grid).forEach((v, i) => (sumOf[i] += v * 0.5));
+    expect(maxAbsDiff(pooled, sumOf)).toBeLessThanOrEqual(1e-12 * maxAbs(sumOf));
   });
   it('trial windows equal the full trace at event-anchored samples', () => {
     const spikes = trains[1];
