@@ -21,3 +21,4 @@ export { warpTime } from './warp-time';
 export { unwarpTime } from './unwarp-time';
 export { warpSpikes } from './warp-spikes';
 export { warpedPsth, type WarpedPsth } from './warped-psth';
+export { eventResponse, type EventResponse, type EventResponseRequest, type ResponseGroup } from './event-response';
