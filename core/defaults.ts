@@ -45,6 +45,29 @@ export const DEFAULTS = {
     preEndS: 0,
     alpha: 0.05,
   },
+  /** Rasters, PSTHs and indicator predictions (issue 4); widths and windows: common practice. */
+  align: {
+    /** Event label to align on when none is given. */
+    event: 'reward',
+    /** Window around the event, s. */
+    windowStartS: -3,
+    windowStopS: 2,
+    /** PSTH bin width, ms. */
+    binMs: 50,
+    /** PSTH smoothing: none | gaussian | exponential | boxcar; width in ms (Gaussian SD). */
+    smoothing: 'gaussian',
+    smoothingWidthMs: 50,
+    /** Confidence band: sem | bootstrap | none; bootstrap coverage, resamples and seed. */
+    band: 'sem',
+    bandLevel: 0.95,
+    bootstrapResamples: 1000,
+    seed: 1,
+    /** Trial grouping: none | condition | kind. */
+    groupBy: 'condition',
+    /** Indicator kernel (library name) and sample rate of predicted traces, Hz. */
+    kernel: 'jGCaMP8m',
+    predictRateHz: 30,
+  },
   /** Unit quality. */
   quality: {
     /** ISI refractory period, ms (common practice). */
