@@ -129,11 +129,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
             cPost[e] = rPost - rPre;
             cLate[e] = rLate - rPre;
             controlled++;
-            for (let j = 0; j < nPsth; j++) {
-              const a = ta + psthStartS + j * binS;
-              const c = profile.meanRate(a, a + binS);
-              if (c === c) psth[j] -= c / n;
-            }
+            profile.addBins(ta + psthStartS, binS, nPsth, -1 / n, psth);
           }
         }
       }

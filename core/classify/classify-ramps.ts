@@ -109,7 +109,10 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
       for (let u = 0; u < nUnits; u++) {
         if (times.length === 0) continue;
         const st = recording.units[u].spikeTimes;
-        const r = rampUnit(binCounts(st, times, windowStartS, binS, nBins), times.length, centresS, binS, Infinity);
+        const r =
+          c === params.condition && sel.times.length === times.length
+            ? units[u]
+            : rampUnit(binCounts(st, times, windowStartS, binS, nBins), times.length, centresS, binS, Infinity);
         slope[u] = r.slopeHzPerS;
         if (refTimes && c !== params.condition && times.length >= 2 && refTimes.length >= 2) {
           diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;

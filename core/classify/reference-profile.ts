@@ -13,6 +13,12 @@ import { lowerBound } from '../align/lower-bound';
 export interface ReferenceProfile {
   /** Mean rate (Hz) over time-in-trial [a, b), NaN when not covered. */
   meanRate(a: number, b: number): number;
+  /**
+   * Mean rate (Hz) in nBins consecutive bins of binS from time-in-trial a,
+   * added times `scale` into out[0..nBins) (NaN bins are skipped; returns false
+   * if any bin was not covered).
+   */
+  addBins(a: number, binS: number, nBins: number, scale: number, out: Float64Array): boolean;
 }
 
 export function referenceProfile(
@@ -52,6 +58,19 @@ export function referenceProfile(
       const ib = Math.round(b / resolutionS);
       if (ia < 0 || ib > nGrid || !(ib > ia)) return NaN;
       return (integral[ib] - integral[ia]) / ((ib - ia) * resolutionS);
+    },
+    addBins(a: number, binS: number, nBins: number, scale: number, out: Float64Array): boolean {
+      const ia = Math.round(a / resolutionS);
+      const step = Math.round(binS / resolutionS);
+      if (ia < 0 || ia + step * nBins > nGrid || !(step > 0)) return false;
+      const f = scale / (step * resolutionS);
+      let ok = true;
+      for (let j = 0; j < nBins; j++) {
+        const v = integral[ia + step * (j + 1)] - integral[ia + step * j];
+        if (v === v) out[j] += f * v;
+        else ok = false;
+      }
+      return ok;
     },
   };
 }
