@@ -43,6 +43,8 @@ export interface JumpUnitResult {
   /** Spearman of the controlled answer against jump size. */
   readonly sizeRho: number;
   readonly sizeP: number;
+  /** The control-subtracted event-averaged PSTH (Hz) it was computed from, bins of binS from psthStartS. */
+  readonly psth: Float64Array;
 }
 
 /**
@@ -141,5 +143,6 @@ export function jumpUnit(
     latencyS,
     sizeRho: sz.rho,
     sizeP: sz.p,
+    psth: x.psth,
   };
 }
