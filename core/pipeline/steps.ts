@@ -1,5 +1,8 @@
 import type { AnalysisStep } from './types';
 import { basicStep } from './basic-step';
+import { rampStep } from '../classify/ramp-step';
+import { jumpStep } from '../classify/jump-step';
+import { clusterStep } from '../classify/cluster-step';
 
 /**
  * The analyses of `run`, in order. To add an analysis: write a step
@@ -8,4 +11,7 @@ import { basicStep } from './basic-step';
  */
 export const STEPS: readonly AnalysisStep[] = [
   basicStep,
+  rampStep,
+  jumpStep,
+  clusterStep,
 ];
