@@ -91,6 +91,9 @@ export function createLightScratch(): LightScratch {
  * zero-jitter artefact; about 0.1 for a 1-ms jitter answer); offsetLockedShare
  * the same after pulse offsets.
  *
+ * saltMinExcess: SALT is skipped (p NaN) when the excess reliability is below
+ * it (the trust simulation's shortcut: such a unit cannot be `tagged`).
+ *
  * Cost: one binary search per pulse and window stretch, then one pass over the
  * spikes inside; no allocation per pulse (detail = false allocates nothing once
  * the scratch has grown). Edge cases: no pulses -> pulses 0 and NaN measures;
@@ -102,6 +105,7 @@ export function lightResponse(
   p: Parameters['light'],
   detail = false,
   scratch: LightScratch = createLightScratch(),
+  saltMinExcess = -Infinity,
 ): LightResponse {
   const n = sch.n;
   const ns = spikeTimes.length;
@@ -227,7 +231,7 @@ export function lightResponse(
       for (let b = 1; b < classes; b++) c += counts[o + b];
       counts[o] = m - c;
     }
-    salt = saltTest(counts, J + 1, classes, m, scratch.salt);
+    if (answered / n - baseAnswered / (m * J) >= saltMinExcess) salt = saltTest(counts, J + 1, classes, m, scratch.salt);
     baselineHz = baseSpikes / (m * J * wn);
     baselineSource = 'salt-windows';
     baselineReliability = baseAnswered / (m * J);

@@ -1,3 +1,5 @@
+import { selectKth } from './select-kth';
+
 /** Result of SALT on one unit. */
 export interface SaltResult {
   /** p = #(null >= test) / #null (no +1, as published); NaN when SALT cannot run. */
@@ -96,18 +98,17 @@ export function saltTest(counts: Int32Array, rows: number, classes: number, n: n
   let k = 0;
   for (let a = 1; a <= J; a++) for (let b = a + 1; b <= J; b++) s.nullD[k++] = dist(a, b);
   for (let a = 1; a <= J; a++) s.testD[a - 1] = dist(0, a);
-  const nullSorted = s.nullD.subarray(0, nullCount).sort();
-  const testSorted = s.testD.subarray(0, J).sort();
-  const median = (x: Float64Array) => (x.length % 2 ? x[(x.length - 1) / 2] : (x[x.length / 2 - 1] + x[x.length / 2]) / 2);
-  const testDistance = median(testSorted);
-  const nullMedian = median(nullSorted);
-  // #(null >= test) by binary search on the sorted null.
-  let lo = 0;
-  let hi = nullCount;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (nullSorted[mid] < testDistance) lo = mid + 1;
-    else hi = mid;
-  }
-  return { p: (nullCount - lo) / nullCount, informationDifference: testDistance - nullMedian, testDistance, nullMedian, nullCount };
+  // #(null >= test) by one pass; medians by selection (no full sort).
+  const median = (x: Float64Array, len: number) => {
+    if (len % 2) return selectKth(x, len, (len - 1) / 2);
+    const hiV = selectKth(x, len, len / 2);
+    let loV = -Infinity;
+    for (let i = 0; i < len / 2; i++) if (x[i] > loV) loV = x[i];
+    return (loV + hiV) / 2;
+  };
+  const testDistance = median(s.testD, J);
+  let atLeast = 0;
+  for (let i = 0; i < nullCount; i++) if (s.nullD[i] >= testDistance) atLeast++;
+  const nullMedian = median(s.nullD, nullCount);
+  return { p: atLeast / nullCount, informationDifference: testDistance - nullMedian, testDistance, nullMedian, nullCount };
 }

@@ -19,13 +19,17 @@ export interface TagVerdict {
  * pass); excess reliability >= minEvokedReliability; waveform r >= minWaveformR
  * when waveforms exist; no artefact flag.
  *
- * `borderline`: SALT-significant and excitatory but failing any of the above
- * (late / indirect, unreliable, poor waveform match, artefact suspect); or the
- * documented SALT pitfall: an answer the count test finds (p < alphaCount,
- * excess reliability >= minEvokedReliability) while SALT's test distance is not
- * above its null median (the support restriction hides one-bin, zero-jitter
- * answers: REFERENCES.md); or SALT cannot run and the count test finds an
- * excitatory answer.
+ * The documented SALT pitfall (REFERENCES.md) is handled on purpose: when the
+ * count test finds an excitatory answer (p < alphaCount, excess reliability
+ * >= minEvokedReliability) while SALT's test distance is not above its null
+ * median, SALT is blind to it (its support restriction scores an answer that
+ * fills classes the baseline never visits as identical to baseline, p up to 1),
+ * and the count test stands in for SALT; every other criterion still applies,
+ * so a zero-jitter answer stays `borderline` (artefact signature).
+ *
+ * `borderline`: significant and excitatory but failing any criterion above
+ * (late / indirect, unreliable, poor waveform match, artefact suspect); or SALT
+ * cannot run and the count test finds an excitatory answer.
  *
  * `untagged`: everything else, including light-inhibited units (SALT
  * significant with fewer answers than baseline) and sessions without pulses
@@ -54,25 +58,25 @@ export function tagVerdict(r: LightResponse, waveformR: number, flags: readonly 
   if (sig && !excitatory) {
     return { tag: 'untagged', reason: `light-inhibited (reliability ${f(r.reliability)} vs baseline ${f(r.baselineReliability)}); ${facts}` };
   }
-  if (sig) {
+  // The documented SALT pitfall: its support restriction scores an answer that
+  // puts (nearly) every pulse in classes the baseline windows never visit as
+  // identical to baseline. The count test then stands in for SALT.
+  const saltBlind = !sig && excitatory && r.countP < p.alphaCount && excess >= p.minEvokedReliability && !(r.salt.testDistance > r.salt.nullMedian);
+  if (sig || saltBlind) {
     const fails: string[] = [];
     const late = r.meanLatencyS * 1000 > p.maxLatencyMs;
     const lateEvoked = r.evokedLatencyS * 1000 > p.maxLatencyMs;
     if (late || lateEvoked) {
-      fails.push(`late answer (${late ? `mean latency ${f(r.meanLatencyS * 1000)} ms` : `excess answers at ${f(r.evokedLatencyS * 1000)} ms`} > ${p.maxLatencyMs} ms; indirect?)`);
+      fails.push(`late answer (${late ? `mean latency ${f(r.meanLatencyS * 1000)} ms` : `excess spikes at ${f(r.evokedLatencyS * 1000)} ms`} > ${p.maxLatencyMs} ms; indirect?)`);
     }
     if (!(excess >= p.minEvokedReliability)) fails.push(`unreliable (excess reliability ${f(excess)} < ${p.minEvokedReliability})`);
     for (const fl of flags) if (fl.code !== 'waveform-mismatch') fails.push(`artefact suspect: ${fl.text}`);
     if (waveformR < p.minWaveformR) fails.push(`waveform match r=${f(waveformR)} < ${p.minWaveformR}`);
-    if (fails.length === 0) return { tag: 'tagged', reason: facts };
-    return { tag: 'borderline', reason: `${fails.join('; ')}; ${facts}` };
-  }
-  if (r.countP < p.alphaCount && excess >= p.minEvokedReliability && !(r.salt.testDistance > r.salt.nullMedian)) {
-    const art = flags.length ? `; artefact suspect: ${flags.map((x) => x.text).join(', ')}` : '';
-    return {
-      tag: 'borderline',
-      reason: `strong locked answer that SALT cannot score (test distance ${f(r.salt.testDistance, 3)} <= null median; support restriction), count test p=${f(r.countP)}${art}; ${facts}`,
-    };
+    const blind = saltBlind
+      ? `SALT blind to this answer (test distance ${f(r.salt.testDistance, 3)} <= null median: support restriction), count test p=${f(r.countP)} used instead; `
+      : '';
+    if (fails.length === 0) return { tag: 'tagged', reason: `${blind}${facts}` };
+    return { tag: 'borderline', reason: `${fails.join('; ')}; ${blind}${facts}` };
   }
   return { tag: 'untagged', reason: `no significant light answer; ${facts}` };
 }
