@@ -51,7 +51,7 @@ export interface LightSchedule {
   readonly lightIntervals: Float64Array;
   /** Light-free time inside the span, s. */
   readonly lightFreeS: number;
-  /** Light groups: pulses whose light-free gap before them is shorter than the SALT baseline share one. */
+  /** Light groups: pulses whose light-free gap before them is shorter than saltMinWindows windows share one. */
   readonly groupCount: number;
 }
 
@@ -61,7 +61,8 @@ export interface LightSchedule {
  * Light-affected time of pulse k: [onset_k + min(0, windowStart), max(offset_k,
  * onset_k + windowEnd) + lightGuardMs]; durations that are NaN count as 0.
  * Light groups: a pulse opens a new group when the light-free time since the
- * previous pulse's light-affected time is at least saltBaselineMs; otherwise it
+ * previous pulse's light-affected time holds at least saltMinWindows windows;
+ * otherwise it
  * joins the previous pulse's group (a train, or pulses too close for their own
  * baseline). With groupStart g and delay d = onset_i - g, anchor_i = g - d: the
  * baseline of a train's m-th pulse lies d before the train's own stretch, so a
@@ -117,14 +118,14 @@ export function lightSchedule(pulses: Pulses, span: readonly [number, number], p
   // Light groups and baseline anchors.
   const anchor = new Float64Array(n);
   const available = new Int32Array(n);
-  const baselineS = maxWindows * windowS;
+  const minBaselineS = p.saltMinWindows * windowS;
   let groupStart = NaN;
   let freeFrom = span[0];
   let prevEnd = -Infinity;
   let groupCount = 0;
   for (let i = 0; i < n; i++) {
     const gapStart = Math.max(span[0], prevEnd);
-    if (i === 0 || onset[i] - gapStart >= baselineS) {
+    if (i === 0 || onset[i] - gapStart >= minBaselineS) {
       groupStart = onset[i];
       freeFrom = gapStart;
       groupCount++;
