@@ -40,7 +40,7 @@ export interface LightResponse {
   readonly salt: SaltResult;
   readonly saltPulses: number;
   readonly saltWindows: number;
-  /** Answers locked to pulse offset: pulses with known offset, answered, jitter (s), count-test p. */
+  /** Answers locked to pulse offset (pulses whose offset falls at or after the test window's end): pulses, answered, jitter (s), count-test p. */
   readonly offsetPulses: number;
   readonly offsetAnswered: number;
   readonly offsetJitterS: number;
@@ -164,7 +164,8 @@ export function lightResponse(
   idx = 0;
   for (let i = 0; i < n; i++) {
     const lo = sch.offset[i];
-    if (!Number.isFinite(lo)) continue;
+    // Offsets inside the test window are covered by the test window's own zero-jitter check.
+    if (!Number.isFinite(lo) || lo < sch.onset[i] + sch.windowEndS) continue;
     offsetPulses++;
     const hi = lo + offsetWindowS;
     idx = lowerBound(spikeTimes, lo, 0);

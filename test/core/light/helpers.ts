@@ -127,3 +127,38 @@ export function simulateUnit(
   if (resp.inhibit || resp.replace) spont = spont.filter((_, j) => keep[j] === 1);
   return mergeSorted(spont, Float64Array.from(added).sort());
 }
+
+/**
+ * A bursty unit of another generative model than the gamma renewal: burst onsets form a
+ * Poisson process; each onset fires 1 + Poisson(extra) spikes at 2.5-5 ms intervals.
+ * Mean rate = onsetHz x (1 + extra).
+ */
+export function burstyTrain(rng: Rng, onsetHz: number, extra: number, spanS: number): Float64Array {
+  const out: number[] = [];
+  let t = 0;
+  for (;;) {
+    t += rng.exponential() / onsetHz;
+    if (t >= spanS) break;
+    let s = t;
+    const k = 1 + rng.poisson(extra);
+    for (let j = 0; j < k && s < spanS; j++) {
+      out.push(s);
+      s += 0.0025 + 0.0025 * rng.uniform();
+    }
+    t = s;
+  }
+  return Float64Array.from(out);
+}
+
+/** A Poisson unit whose rate drifts slowly: rate(t) = mean x (1 + depth sin(2 pi t / periodS)), by thinning. */
+export function driftingTrain(rng: Rng, meanHz: number, depth: number, periodS: number, spanS: number): Float64Array {
+  const out: number[] = [];
+  const peak = meanHz * (1 + depth);
+  let t = 0;
+  for (;;) {
+    t += rng.exponential() / peak;
+    if (t >= spanS) break;
+    if (rng.uniform() * peak < meanHz * (1 + depth * Math.sin((2 * Math.PI * t) / periodS))) out.push(t);
+  }
+  return Float64Array.from(out);
+}
