@@ -33,6 +33,8 @@ export interface LightResponse {
   readonly evokedJitterS: number;
   /** Share of the excess spikes falling in the densest 2 x (artefactJitterMs / 2) slot of the test window. */
   readonly lockedShare: number;
+  /** Share of the excess spikes in the densest two such slots >= 1 ms apart (onset- plus offset-locked events). */
+  readonly lockedPairShare: number;
   /** Excess spikes in the offset windows, and the share of them in the densest slot. */
   readonly offsetExcess: number;
   readonly offsetLockedShare: number;
@@ -261,6 +263,7 @@ export function lightResponse(
   let evokedLatencyS = NaN;
   let evokedJitterS = NaN;
   let lockedShare = NaN;
+  let lockedPairShare = NaN;
   let offsetLockedShare = NaN;
   if (n > 0 && baselineHz === baselineHz) {
     const lam = baselineHz * n;
@@ -270,9 +273,19 @@ export function lightResponse(
       const m2 = (allSum2 - (lam * wn * wn * wn) / 3) / excess;
       evokedLatencyS = mu + ws;
       evokedJitterS = m2 - mu * mu > 0 ? Math.sqrt(m2 - mu * mu) : 0;
+      // Densest slot, and densest two slots >= 1 ms apart (onset- and offset-locked events).
+      const gap = Math.ceil(0.001 / fineS - 1e-9);
       let best = 0;
-      for (let b = 0; b + 1 < nFine; b++) best = Math.max(best, fine[b] + fine[b + 1]);
+      let bestPair = 0;
+      let bestBefore = 0;
+      for (let b = 0; b + 1 < nFine; b++) {
+        const here = fine[b] + fine[b + 1];
+        if (b - gap >= 0) bestBefore = Math.max(bestBefore, fine[b - gap] + fine[b - gap + 1]);
+        best = Math.max(best, here);
+        if (b >= gap) bestPair = Math.max(bestPair, here + bestBefore);
+      }
       lockedShare = (best - lam * 2 * fineS) / excess;
+      lockedPairShare = (bestPair - lam * 4 * fineS) / excess;
     }
     const offExcess = offSpikes - baselineHz * offsetPulses * offsetWindowS;
     if (offExcess > 0) {
@@ -337,6 +350,7 @@ export function lightResponse(
     offsetCountP,
     offsetExcess: offsetPulses > 0 && baselineHz === baselineHz ? offSpikes - baselineHz * offsetPulses * offsetWindowS : NaN,
     lockedShare,
+    lockedPairShare,
     offsetLockedShare,
     frequencyPulses,
     frequencyReliability,

@@ -73,7 +73,8 @@ export interface LightSchedule {
  * out of SALT (not out of the other measures). J < saltMinWindows: SALT cannot
  * run and saltProblem says why.
  *
- * Frequency: the pulse's frequencyHz; when NaN and its train has >= 2 pulses,
+ * Frequency (3 significant digits, so 19.9999 and 20.0001 Hz are one group):
+ * the pulse's frequencyHz; when NaN and its train has >= 2 pulses,
  * 1 / median inter-pulse interval of the train (3 significant digits); else a
  * single pulse.
  */
@@ -168,7 +169,7 @@ export function lightSchedule(pulses: Pulses, span: readonly [number, number], p
   const freqOf = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const f = pulses.frequencyHz[i];
-    if (Number.isFinite(f) && f > 0) freqOf[i] = f;
+    if (Number.isFinite(f) && f > 0) freqOf[i] = Number(f.toPrecision(3));
     else {
       const members = trainMembers.get(pulses.train[i])!;
       if (members.length < 2) freqOf[i] = NaN;
