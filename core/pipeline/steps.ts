@@ -1,5 +1,6 @@
 import type { AnalysisStep } from './types';
 import { basicStep } from './basic-step';
+import { lightStep } from '../light/light-step';
 import { rampStep } from '../classify/ramp-step';
 import { jumpStep } from '../classify/jump-step';
 import { clusterStep } from '../classify/cluster-step';
@@ -11,6 +12,7 @@ import { clusterStep } from '../classify/cluster-step';
  */
 export const STEPS: readonly AnalysisStep[] = [
   basicStep,
+  lightStep,
   rampStep,
   jumpStep,
   clusterStep,
