@@ -1,5 +1,6 @@
 import type { AnalysisStep } from './types';
 import { basicStep } from './basic-step';
+import { qualityStep } from '../quality/quality-step';
 
 /**
  * The analyses of `run`, in order. To add an analysis: write a step
@@ -8,4 +9,5 @@ import { basicStep } from './basic-step';
  */
 export const STEPS: readonly AnalysisStep[] = [
   basicStep,
+  qualityStep,
 ];
