@@ -18,7 +18,7 @@ describe('validateSessionFile (schema version 1)', () => {
   });
   it.each<[string, (j: any) => void, RegExp]>([
     ['not JSON', () => undefined, /^my\.session\.json: not valid JSON/],
-    ['wrong format', (j) => (j.format = 'something-else'), /field format: expected "tagbench-session"; this is not a tagbench session file \(value ""something-else""\)/],
+    ['wrong format', (j) => (j.format = 'something-else'), /field format: expected "tagbench-session"; this is not a tagbench session file \(value "something-else"\)/],
     ['newer schema', (j) => (j.schemaVersion = 2), /field schemaVersion: version 2 was written by a newer tagbench \(this one reads up to 1\)/],
     ['unknown field', (j) => (j.extra = 1), /field extra: unknown field/],
     ['bad hash', (j) => (j.inputs[0].sha256 = 'xyz'), /field inputs\[0\]\.sha256: expected 64 lowercase hex digits \(value "xyz"\)/],
@@ -27,7 +27,7 @@ describe('validateSessionFile (schema version 1)', () => {
     ['wrong parameter type', (j) => (j.parameters.quality.refractoryMs = '2'), /column "quality\.refractoryMs".*expected a finite number/],
     ['duplicate units', (j) => (j.units = ['u0', 'u0']), /field units: unit ids repeat/],
     ['curation of an unknown unit', (j) => (j.curation.units.u9 = { labels: {} }), /field curation\.units\."u9": curation of a unit that is not in "units"/],
-    ['bad label word', (j) => (j.curation.units.u0.labels.tag.value = 'yes'), /field curation\.units\."u0"\.labels\.tag\.value: expected one of tagged, borderline, untagged \(value ""yes""\)/],
+    ['bad label word', (j) => (j.curation.units.u0.labels.tag.value = 'yes'), /field curation\.units\."u0"\.labels\.tag\.value: expected one of tagged, borderline, untagged \(value "yes"\)/],
     ['label on a number column', (j) => (j.curation.units.u0.labels.rate_hz = j.curation.units.u0.labels.tag), /field curation\.units\."u0"\.labels\.rate_hz: not a verdict column/],
     ['missing who', (j) => delete j.curation.units.u1.note.by, /field curation\.units\."u1"\.note\.by: expected a non-empty string/],
     ['bad time', (j) => (j.curation.units.u1.note.at = '1 March'), /field curation\.units\."u1"\.note\.at: expected an ISO 8601 UTC time/],
