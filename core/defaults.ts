@@ -166,6 +166,22 @@ export const DEFAULTS = {
     refractoryMs: 1.5,
     /** Censored period, ms (common practice). */
     censoredMs: 0,
+    /** Equal time bins over the span for the presence ratio (common practice: 100). */
+    presenceBins: 100,
+    /** Consecutive equal segments of the span for rate drift (our choice, no published source). */
+    driftSegments: 10,
+    /** Autocorrelogram bin and half-window, ms (common practice for figures). */
+    acgBinMs: 1,
+    acgWindowMs: 50,
+    /** Screening thresholds of the `quality` verdict (common practice unless noted). */
+    /** Fewest spikes for a unit to be judged at all (our choice). */
+    minSpikes: 100,
+    /** Largest Hill et al. (2011) contamination estimate (common practice: 0.1). */
+    maxContamination: 0.1,
+    /** Smallest presence ratio (common practice: 0.9). */
+    minPresenceRatio: 0.9,
+    /** Largest coefficient of variation of segment rates (our choice; Poisson noise alone gives ~sqrt(segments / spikes)). */
+    maxRateDriftCv: 0.5,
   },
 };
 

@@ -4,6 +4,7 @@ import { lightStep } from '../light/light-step';
 import { rampStep } from '../classify/ramp-step';
 import { jumpStep } from '../classify/jump-step';
 import { clusterStep } from '../classify/cluster-step';
+import { qualityStep } from '../quality/quality-step';
 
 /**
  * The analyses of `run`, in order. To add an analysis: write a step
@@ -16,4 +17,5 @@ export const STEPS: readonly AnalysisStep[] = [
   rampStep,
   jumpStep,
   clusterStep,
+  qualityStep,
 ];
