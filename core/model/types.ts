@@ -82,6 +82,13 @@ export interface Recording {
   readonly waveformSampleRateHz: number;
   /** Raw extracellular voltage, when the session names a raw binary file. */
   readonly raw?: RawSource;
+  /**
+   * Descriptive session metadata from the inputs, if any (for run.json and
+   * reports): e.g. from an NWB file nwb_version, identifier,
+   * session_description, session_start_time, and the light source's
+   * stimulus_site_description / _location / excitation_lambda_nm.
+   */
+  readonly meta?: Readonly<Record<string, Scalar>>;
 }
 
 /**
