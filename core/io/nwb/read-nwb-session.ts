@@ -62,16 +62,10 @@ export function readNwbSession(h5: Hdf5File, file: string, options: NwbSessionOp
   const u = readUnitsTable(h5, file, plan.units);
   warnings.push(...u.warnings);
   const ids = u.units.map((x) => x.id);
-  let total = 0;
-  for (const x of u.units) total += x.spikeTimes.length;
-  const unitCode = new Int32Array(total);
-  const time = new Float64Array(total);
-  let k = 0;
-  u.units.forEach((x, r) => {
-    unitCode.fill(r, k, k + x.spikeTimes.length);
-    time.set(x.spikeTimes, k);
-    k += x.spikeTimes.length;
-  });
+  // The stored spike_times are already grouped by unit: pass them as they are, with one unit code per spike.
+  const time = u.spikeTimes.subarray(0, u.spikeEnds.length ? u.spikeEnds[u.spikeEnds.length - 1] : 0);
+  const unitCode = new Int32Array(time.length);
+  u.spikeEnds.forEach((end, r) => unitCode.fill(r, r === 0 ? 0 : u.spikeEnds[r - 1], end));
   const tables: { -readonly [K in keyof RecordingTables]: RecordingTables[K] } = {
     spikes: { file, columns: { unit: `${plan.units}/id`, time: `${plan.units}/spike_times` }, unitIds: ids, unit: unitCode, time },
     unitInfo: unitInfoColumns(file, plan.units, u.units.map((x) => x.meta), ids),

@@ -30,12 +30,18 @@ import { InputError } from '../../errors';
 import type { Scalar, Unit, Warning } from '../../model/types';
 import { describeTable, type TableColumn } from './describe-table';
 import type { H5Data, Hdf5File } from './hdf5-access';
+import { readFloat64Blocks } from './read-float64-blocks';
 import { readVectorIndex } from './read-vector-index';
 import { textAttr } from './text-attr';
 import { toFloat64 } from './to-float64';
 
 export interface UnitsTableResult {
+  /** Units in table order; each unit's spikeTimes is a view of `spikeTimes`. */
   readonly units: readonly Unit[];
+  /** All spike times as stored (s), unit after unit, each unit's sorted. */
+  readonly spikeTimes: Float64Array;
+  /** End of each unit's spikes in `spikeTimes` (the checked spike_times_index). */
+  readonly spikeEnds: Float64Array;
   /** Sample rate of the waveform means, Hz (NaN when none). */
   readonly waveformSampleRateHz: number;
   readonly warnings: readonly Warning[];
@@ -61,7 +67,7 @@ export function readUnitsTable(h5: Hdf5File, file: string, tablePath: string): U
   // Spike times.
   const st = col('spike_times');
   if (!st) throw new InputError({ file, problem: `the units table ${tablePath} has no spike_times column`, fix: 'write the spike times of each unit into the units table' });
-  const times = toFloat64(h5.read(st.path), file, st.path);
+  const times = readFloat64Blocks(h5, file, st.path);
   const ends = rowEnds(h5, file, st, times.length, n, tablePath);
   const spikeTimes: Float64Array[] = [];
   for (let r = 0; r < n; r++) {
@@ -75,7 +81,7 @@ export function readUnitsTable(h5: Hdf5File, file: string, tablePath: string): U
         throw new InputError({ file, column: st.path, value: String(t[i]), problem: `spike times of unit ${ids[r]} (table row ${r}) are not sorted: spike ${i} comes before spike ${i - 1} (${t[i - 1]} s)`, fix: 'write each unit\'s spike times in ascending order' });
       }
     }
-    spikeTimes.push(Float64Array.from(t));
+    spikeTimes.push(t);
   }
 
   // Observation intervals.
@@ -135,7 +141,7 @@ export function readUnitsTable(h5: Hdf5File, file: string, tablePath: string): U
     if (observed[r]) u.observedIntervals = observed[r];
     return u;
   });
-  return { units, waveformSampleRateHz: wave.rateHz, warnings };
+  return { units, spikeTimes: times, spikeEnds: ends, waveformSampleRateHz: wave.rateHz, warnings };
 }
 
 function readIds(h5: Hdf5File, file: string, tablePath: string, n: number): string[] {

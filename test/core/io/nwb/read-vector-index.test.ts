@@ -51,3 +51,14 @@ describe('readVectorIndex', () => {
     }
   });
 });
+
+describe('readFloat64Blocks', () => {
+  it('gives the same values block by block as in one read, for any block size', async () => {
+    const { readFloat64Blocks } = await import('../../../../core/io/nwb/read-float64-blocks');
+    const data = Float64Array.from({ length: 1001 }, (_, i) => i * 0.5);
+    const h5 = fakeHdf5({ members: { d: { data } } });
+    for (const block of [1, 7, 1000, 1001, 5000]) expect(Array.from(readFloat64Blocks(h5, 'f.nwb', '/d', block))).toEqual(Array.from(data));
+    const big = fakeHdf5({ members: { d: { data: BigUint64Array.of(1n, 2n, 3n) } } });
+    expect(Array.from(readFloat64Blocks(big, 'f.nwb', '/d', 2))).toEqual([1, 2, 3]);
+  });
+});
