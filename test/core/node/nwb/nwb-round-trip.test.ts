@@ -44,7 +44,7 @@ describe('simulated session written as NWB', () => {
     // events: the reader sorts by time; ties keep source order, so compare as sorted (time, label, trial, kind) rows
     const rows = (e: typeof rec.events) => Array.from(e.time, (t, i) => `${t}|${e.label[i]}|${e.trial[i]}|${e.kind[i]}`).sort();
     expect(rows(got.events)).toEqual(rows(rec.events));
-    expect(new Set(got.events.label)).toEqual(new Set(["jump", "reward"]));
+    expect([...new Set(got.events.label)].sort()).toEqual(['jump', 'reward', 'sweep_on']);
     expect(Array.from(got.trials.trial)).toEqual(Array.from(rec.trials.trial));
     expect(Array.from(got.trials.start)).toEqual(Array.from(rec.trials.start));
     expect(Array.from(got.trials.stop)).toEqual(Array.from(rec.trials.stop));
