@@ -5,9 +5,11 @@
  */
 import { inspectCommand } from './inspect';
 import { runCommand } from './run';
+import { batchCommand } from './batch';
 import type { Command } from './types';
 
 export const COMMANDS: readonly Command[] = [
   runCommand,
   inspectCommand,
+  batchCommand,
 ];

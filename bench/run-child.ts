@@ -1,0 +1,13 @@
+/**
+ * Child process of the benchmark: runs `tagbench run <session> --out <dir>`
+ * in process, then prints one JSON line {runMs, maxRssBytes, heapUsedBytes}.
+ * Usage: node --import tsx bench/run-child.ts <session> <out>
+ */
+import { runCommand } from '../core/node/commands/run';
+
+const [session, out] = process.argv.slice(2);
+const t0 = performance.now();
+const code = await runCommand.run([session, '--out', out], { stdout: () => {}, stderr: (s) => process.stderr.write(s), isTty: false });
+const runMs = performance.now() - t0;
+if (code !== 0) process.exit(code);
+console.log(JSON.stringify({ runMs, maxRssBytes: process.resourceUsage().maxRSS * 1024, heapUsedBytes: process.memoryUsage().heapUsed }));
