@@ -4,18 +4,18 @@
  * apply, and for stable, JSON-clean output.
  */
 import { describe, expect, it } from 'vitest';
-import { DEFAULTS, type Parameters } from '../../../core/defaults';
-import { lightFollowingFigure } from '../../../core/figures/light-following';
-import { lightLatencyFigure } from '../../../core/figures/light-latency';
-import { lightRasterFigure } from '../../../core/figures/light-raster';
-import { lightWaveformFigure } from '../../../core/figures/light-waveform';
-import type { FigureContext } from '../../../core/figures/types';
-import { lightResponse } from '../../../core/light/light-response';
-import { lightSchedule } from '../../../core/light/light-schedule';
-import { emptyEvents, emptyPulses, emptyTrials } from '../../../core/model/empty';
-import type { RawSource, Recording } from '../../../core/model/types';
-import { Rng } from '../../../core/random/rng';
-import { makePulses, simulateUnit } from '../light/helpers';
+import { DEFAULTS, type Parameters } from '../../../../core/defaults';
+import { lightFollowingFigure } from '../../../../core/figures/light/light-following';
+import { lightLatencyFigure } from '../../../../core/figures/light/light-latency';
+import { lightRasterFigure } from '../../../../core/figures/light/light-raster';
+import { lightWaveformFigure } from '../../../../core/figures/light/light-waveform';
+import type { FigureContext } from '../../../../core/figures/types';
+import { lightResponse } from '../../../../core/light/light-response';
+import { lightSchedule } from '../../../../core/light/light-schedule';
+import { emptyEvents, emptyPulses, emptyTrials } from '../../../../core/model/empty';
+import type { RawSource, Recording } from '../../../../core/model/types';
+import { Rng } from '../../../../core/random/rng';
+import { makePulses, simulateUnit } from '../../light/helpers';
 
 const parameters = JSON.parse(JSON.stringify(DEFAULTS)) as Parameters;
 const ps = makePulses({ single: 60, trainFrequencies: [10], trains: 4 });
