@@ -31,6 +31,7 @@ describe('DEFAULTS.light', () => {
       waveformMinSpikes: 10,
       trustNullSimulations: 200,
       trustPowerSimulations: 40,
+      trustBudget: 10000000,
       trustPowerLatencyMs: 4,
       trustPowerJitterMs: 1,
       trustPower: 0.8,
