@@ -1,3 +1,4 @@
+import { rasterPsthUnitFigure } from './align/raster-psth-unit-figure';
 import { autocorrelogramFigure } from './quality/autocorrelogram-figure';
 import { isiHistogramFigure } from './quality/isi-histogram-figure';
 import { rateHeatmapFigure } from './quality/rate-heatmap-figure';
@@ -19,6 +20,8 @@ export const UNIT_FIGURES: readonly UnitFigure[] = [
   autocorrelogramFigure,
   isiHistogramFigure,
   waveformFigure,
+  // alignment
+  rasterPsthUnitFigure,
 ];
 
 export const POPULATION_FIGURES: readonly PopulationFigure[] = [

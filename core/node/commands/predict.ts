@@ -12,8 +12,9 @@ import { resampleLinear } from '../../kernels/resample-linear';
 import type { Kernel, SampleGrid } from '../../kernels/types';
 import { resolveParameters } from '../../resolve-parameters';
 import { formatNumber } from '../../table/format-number';
-import { writeFileAtomic } from '../write-file-atomic';
-import { commandArgs, numberOption, rangeOption } from './command-args';
+import { writeOutputFile } from '../write-output-file';
+import { parseCliArgs } from '../parse-cli-args';
+import { numberOption, rangeOption } from './option-values';
 import type { Command } from './types';
 
 const NAME = 'predict';
@@ -57,13 +58,13 @@ export function createPredictCommand(load: (path: string) => Promise<ImportResul
     summary: 'Predicted dF/F of units or the population through an indicator kernel, compared with a measured trace',
     usage: USAGE,
     async run(argv, io) {
-      const a = commandArgs(argv, NAME, VALUED, ['--search']);
-      if (a.flags.has('--help')) {
+      const a = parseCliArgs(argv, NAME, VALUED, ['--help', '-h', '--search']);
+      if (a.flags.has('--help') || a.flags.has('-h')) {
         io.stdout(`${USAGE}\n`);
         return 0;
       }
       const where = `tagbench ${NAME}`;
-      const opt = (k: string) => a.options.get(k);
+      const opt = (k: string): string | undefined => a.options[k];
       if (a.positionals.length !== 1) throw new InputError({ file: where, problem: 'expects one session folder or .nwb file', fix: 'run "tagbench predict <session> --kernel jGCaMP8m --out trace.csv"' });
       const out = opt('--out');
       if (!out || !/\.csv$/i.test(out)) throw new InputError({ file: where, column: '--out', value: out ?? '', problem: 'give the output file, ending in .csv' });
@@ -148,7 +149,7 @@ export function createPredictCommand(load: (path: string) => Promise<ImportResul
         if (measured) row.push(formatNumber(measured.values[k]), formatNumber(fitted![k]));
         lines.push(row.join(','));
       }
-      writeFileAtomic(out, `${lines.join('\n')}\n`);
+      writeOutputFile(out, `${lines.join('\n')}\n`);
       const unitNote = amplitudeKnown ? 'dF/F' : 'units of one spike\'s peak (single-spike amplitude not published; give --amplitude)';
       io.stderr([`predict: ${kernelName}, ${columns.length} column(s), ${length} samples at ${fmt(gridRate)} Hz, in ${unitNote}; wrote ${out}`, ...notes].join('\n') + '\n');
       return 0;

@@ -5,8 +5,9 @@ import { InputError } from '../../errors';
 import type { ImportResult } from '../../io/import-result';
 import { resolveParameters } from '../../resolve-parameters';
 import { formatNumber } from '../../table/format-number';
-import { writeFileAtomic } from '../write-file-atomic';
-import { commandArgs, numberOption, rangeOption } from './command-args';
+import { writeOutputFile } from '../write-output-file';
+import { parseCliArgs } from '../parse-cli-args';
+import { numberOption, rangeOption } from './option-values';
 import type { Command } from './types';
 
 const NAME = 'psth';
@@ -50,13 +51,13 @@ export function createPsthCommand(load: (path: string) => Promise<ImportResult>)
     summary: 'PSTHs (and raster counts) of a unit around an event label or the laser pulses, by condition or kind',
     usage: USAGE,
     async run(argv, io) {
-      const a = commandArgs(argv, NAME, VALUED, ['--pulses']);
-      if (a.flags.has('--help')) {
+      const a = parseCliArgs(argv, NAME, VALUED, ['--help', '-h', '--pulses']);
+      if (a.flags.has('--help') || a.flags.has('-h')) {
         io.stdout(`${USAGE}\n`);
         return 0;
       }
       if (a.positionals.length !== 1) throw new InputError({ file: `tagbench ${NAME}`, problem: 'expects one session folder or .nwb file', fix: 'run "tagbench psth <session> --unit U --event LABEL"' });
-      const opt = (k: string) => a.options.get(k);
+      const opt = (k: string): string | undefined => a.options[k];
       const unitArg = opt('--unit');
       if (!unitArg) throw new InputError({ file: `tagbench ${NAME}`, column: '--unit', problem: 'which unit?', fix: 'give --unit with a unit id, or --unit all' });
       const out = opt('--out');
@@ -129,7 +130,7 @@ export function createPsthCommand(load: (path: string) => Promise<ImportResult>)
       }
       const text = out && /\.json$/i.test(out) ? toJson(responses) : toCsv(responses);
       if (out) {
-        writeFileAtomic(out, text);
+        writeOutputFile(out, text);
         const g = first.groups.map((x) => `${x.label} (${x.psth.nTrials})`).join(', ');
         io.stderr(`psth: ${responses.length} unit(s), ${first.source}, groups ${g}; wrote ${out}\n`);
       } else io.stdout(text);

@@ -1,16 +1,16 @@
 import { describe, expect, it } from 'vitest';
-import { eventResponse } from '../../../core/align/event-response';
-import { DEFAULTS } from '../../../core/defaults';
-import { eventLockedComparisonFigure } from '../../../core/figures/event-locked-comparison-figure';
-import { indicatorTraceFigure } from '../../../core/figures/indicator-trace-figure';
-import { rasterPsthFigure } from '../../../core/figures/raster-psth-figure';
-import { rasterPsthUnitFigure } from '../../../core/figures/raster-psth-unit-figure';
-import { GROUP_COLORS } from '../../../core/figures/theme';
-import { eventLockedTrace } from '../../../core/kernels/event-locked-trace';
-import { fitAmplitudeOffset } from '../../../core/kernels/fit-amplitude-offset';
-import { predictTrace } from '../../../core/kernels/predict-trace';
-import { normaliseFigure } from '../../helpers/normalise-figure';
-import { makeRecording } from '../../helpers/recording';
+import { eventResponse } from '../../../../core/align/event-response';
+import { DEFAULTS } from '../../../../core/defaults';
+import { eventLockedComparisonFigure } from '../../../../core/figures/align/event-locked-comparison-figure';
+import { indicatorTraceFigure } from '../../../../core/figures/align/indicator-trace-figure';
+import { rasterPsthFigure } from '../../../../core/figures/align/raster-psth-figure';
+import { rasterPsthUnitFigure } from '../../../../core/figures/align/raster-psth-unit-figure';
+import { GROUP_COLORS } from '../../../../core/figures/theme';
+import { eventLockedTrace } from '../../../../core/kernels/event-locked-trace';
+import { fitAmplitudeOffset } from '../../../../core/kernels/fit-amplitude-offset';
+import { predictTrace } from '../../../../core/kernels/predict-trace';
+import { normaliseFigure } from '../../../helpers/normalise-figure';
+import { makeRecording } from '../../../helpers/recording';
 
 // Invented mini session: 4 trials, two conditions, one reward per trial.
 const rec = makeRecording({
