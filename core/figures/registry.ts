@@ -1,3 +1,4 @@
+import { populationResponseFigure } from './align/population-response-figure';
 import { rasterPsthUnitFigure } from './align/raster-psth-unit-figure';
 import { autocorrelogramFigure } from './quality/autocorrelogram-figure';
 import { isiHistogramFigure } from './quality/isi-histogram-figure';
@@ -28,4 +29,6 @@ export const POPULATION_FIGURES: readonly PopulationFigure[] = [
   // quality and curation
   verdictCountsFigure,
   rateHeatmapFigure,
+  // alignment
+  populationResponseFigure,
 ];
