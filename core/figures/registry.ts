@@ -1,3 +1,5 @@
+import { populationResponseFigure } from './align/population-response-figure';
+import { rasterPsthUnitFigure } from './align/raster-psth-unit-figure';
 import { autocorrelogramFigure } from './quality/autocorrelogram-figure';
 import { isiHistogramFigure } from './quality/isi-histogram-figure';
 import { rateHeatmapFigure } from './quality/rate-heatmap-figure';
@@ -28,10 +30,14 @@ export const UNIT_FIGURES: readonly UnitFigure[] = [
   lightLatencyFigure,
   lightFollowingFigure,
   lightWaveformFigure,
+  // alignment
+  rasterPsthUnitFigure,
 ];
 
 export const POPULATION_FIGURES: readonly PopulationFigure[] = [
   // quality and curation
   verdictCountsFigure,
   rateHeatmapFigure,
+  // alignment
+  populationResponseFigure,
 ];

@@ -1,6 +1,6 @@
-import { eventResponse } from '../align/event-response';
+import { eventResponse } from '../../align/event-response';
 import { rasterPsthFigure } from './raster-psth-figure';
-import type { UnitFigure } from './types';
+import type { UnitFigure } from '../types';
 
 /**
  * The "Event response" unit figure for screens, exports and the report:

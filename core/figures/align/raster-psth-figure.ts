@@ -1,5 +1,5 @@
-import type { EventResponse } from '../align/event-response';
-import { BASE_LAYOUT, GROUP_COLORS, type FigureSpec } from './theme';
+import type { EventResponse } from '../../align/event-response';
+import { BASE_LAYOUT, GROUP_COLORS, type FigureSpec } from '../theme';
 
 /**
  * Raster (top) and PSTH (bottom) of one unit around one event, one colour per
@@ -82,7 +82,7 @@ export function rasterPsthFigure(r: EventResponse): FigureSpec {
           yanchor: 'bottom',
           showarrow: false,
           font: { size: 10, color: '#555' },
-          text: `bins ${o.binMs} ms${smooth}; band: ${bandName(band) || 'none'}`,
+          text: `bins ${o.binMs} ms${smooth}; band: ${band === 'bootstrap' ? `${Math.round(100 * (o.level ?? 0.95))} % trial bootstrap` : band === 'sem' ? '± 1 SEM' : 'none'}`,
         },
       ],
     },

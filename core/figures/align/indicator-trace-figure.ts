@@ -1,6 +1,6 @@
-import type { AmplitudeFit } from '../kernels/fit-amplitude-offset';
-import type { SampleGrid } from '../kernels/types';
-import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from './theme';
+import type { AmplitudeFit } from '../../kernels/fit-amplitude-offset';
+import type { SampleGrid } from '../../kernels/types';
+import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from '../theme';
 
 export interface IndicatorTraceInput {
   /** Who the prediction is for, e.g. "unit 12" or "population (48 units)". */

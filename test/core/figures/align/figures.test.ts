@@ -1,16 +1,17 @@
 import { describe, expect, it } from 'vitest';
-import { eventResponse } from '../../../core/align/event-response';
-import { DEFAULTS } from '../../../core/defaults';
-import { eventLockedComparisonFigure } from '../../../core/figures/event-locked-comparison-figure';
-import { indicatorTraceFigure } from '../../../core/figures/indicator-trace-figure';
-import { rasterPsthFigure } from '../../../core/figures/raster-psth-figure';
-import { rasterPsthUnitFigure } from '../../../core/figures/raster-psth-unit-figure';
-import { GROUP_COLORS } from '../../../core/figures/theme';
-import { eventLockedTrace } from '../../../core/kernels/event-locked-trace';
-import { fitAmplitudeOffset } from '../../../core/kernels/fit-amplitude-offset';
-import { predictTrace } from '../../../core/kernels/predict-trace';
-import { normaliseFigure } from '../../helpers/normalise-figure';
-import { makeRecording } from '../../helpers/recording';
+import { eventResponse } from '../../../../core/align/event-response';
+import { DEFAULTS } from '../../../../core/defaults';
+import { eventLockedComparisonFigure } from '../../../../core/figures/align/event-locked-comparison-figure';
+import { indicatorTraceFigure } from '../../../../core/figures/align/indicator-trace-figure';
+import { populationResponseFigure } from '../../../../core/figures/align/population-response-figure';
+import { rasterPsthFigure } from '../../../../core/figures/align/raster-psth-figure';
+import { rasterPsthUnitFigure } from '../../../../core/figures/align/raster-psth-unit-figure';
+import { GROUP_COLORS } from '../../../../core/figures/theme';
+import { eventLockedTrace } from '../../../../core/kernels/event-locked-trace';
+import { fitAmplitudeOffset } from '../../../../core/kernels/fit-amplitude-offset';
+import { predictTrace } from '../../../../core/kernels/predict-trace';
+import { normaliseFigure } from '../../../helpers/normalise-figure';
+import { makeRecording } from '../../../helpers/recording';
 
 // Invented mini session: 4 trials, two conditions, one reward per trial.
 const rec = makeRecording({
@@ -69,5 +70,23 @@ describe('indicator figures', () => {
     const f = eventLockedComparisonFigure({ event: 'reward', measured: m, predicted: p, measuredUnit: 'dF/F', predictedUnit: 'dF/F', kernelName: 'jGCaMP8m' });
     expect(f.data.map((d) => d.yaxis)).toEqual(['y', 'y', 'y', 'y2', 'y2', 'y2']);
     await expect(normaliseFigure(f)).toMatchFileSnapshot('./__snapshots__/event-locked-comparison.json');
+  });
+});
+
+describe('populationResponseFigure', () => {
+  it('z-scores each unit against the start of the window and sorts rows by peak time', async () => {
+    // Two invented units: 'early' bursts 0.1 s after each reward, 'late' 0.4 s after; both fire sparsely before.
+    const rewards = Array.from({ length: 20 }, (_, k) => 10 + 5 * k);
+    const early = rewards.flatMap((t) => [t - 2.5, t - 1.7, t - 0.9, t + 0.1, t + 0.11, t + 0.12]);
+    const late = rewards.flatMap((t) => [t - 2.2, t - 1.3, t - 0.6, t + 0.4, t + 0.41, t + 0.42]);
+    const r2 = makeRecording({ units: [{ id: 'late', spikes: late }, { id: 'early', spikes: early }, { id: 'silent', spikes: [] }], events: rewards.map((t) => ({ time: t, label: 'reward' })) });
+    const p2 = { ...params, align: { ...params.align, binMs: 100, smoothing: 'none', windowStartS: -3, windowStopS: 1 } };
+    const f = populationResponseFigure.build({ recording: r2, parameters: p2, table: { columns: [], rowCount: 3 } })!;
+    expect(f.data[0].y).toEqual(['unit early', 'unit late', 'unit silent']);
+    const z = f.data[0].z as (number | null)[][];
+    expect((z[2] as (number | null)[]).every((v) => v === null)).toBe(true); // silent: flat baseline, no z
+    expect(Math.max(...(z[0] as number[]))).toBe(5); // capped burst
+    await expect(normaliseFigure(f)).toMatchFileSnapshot('./__snapshots__/population-response.json');
+    expect(populationResponseFigure.build({ recording: r2, parameters: { ...p2, align: { ...p2.align, event: 'lick' } }, table: { columns: [], rowCount: 3 } })).toBeNull();
   });
 });

@@ -1,5 +1,5 @@
-import type { EventLockedTrace } from '../kernels/event-locked-trace';
-import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from './theme';
+import type { EventLockedTrace } from '../../kernels/event-locked-trace';
+import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from '../theme';
 
 /**
  * Event-locked averages of the measured and the predicted trace side by side
