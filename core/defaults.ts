@@ -143,6 +143,8 @@ export const DEFAULTS = {
     binS: 0.1,
     /** Fewest units with a response needed to cluster. */
     minUnits: 8,
+    /** Event types with fewer events are left out of the clustered responses (too noisy; common practice). */
+    minEvents: 10,
   },
   /** Rasters, PSTHs and indicator predictions (issue 4); widths and windows: common practice. */
   align: {
