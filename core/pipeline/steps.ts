@@ -1,5 +1,9 @@
 import type { AnalysisStep } from './types';
 import { basicStep } from './basic-step';
+import { lightStep } from '../light/light-step';
+import { rampStep } from '../classify/ramp-step';
+import { jumpStep } from '../classify/jump-step';
+import { clusterStep } from '../classify/cluster-step';
 import { qualityStep } from '../quality/quality-step';
 
 /**
@@ -9,5 +13,9 @@ import { qualityStep } from '../quality/quality-step';
  */
 export const STEPS: readonly AnalysisStep[] = [
   basicStep,
+  lightStep,
+  rampStep,
+  jumpStep,
+  clusterStep,
   qualityStep,
 ];

@@ -4,9 +4,9 @@ import type { LightBlockSpec, ScenarioSpec, TaskSpec } from './types';
 export const DEFAULT_TASK: TaskSpec = {
   trials: 120,
   conditions: [
-    { name: 'standard', weight: 0.7, sweepS: 4 },
+    { name: 'standard', weight: 0.6, sweepS: 4 },
     { name: 'fast', weight: 0.15, sweepS: 2.5 },
-    { name: 'probe', weight: 0.15, sweepS: 4, probe: true },
+    { name: 'probe', weight: 0.25, sweepS: 4, probe: true },
   ],
   preSweepS: 0.5,
   postRewardS: 1.5,

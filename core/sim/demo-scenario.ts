@@ -20,7 +20,7 @@ export const DEMO_MIX: PopulationMix = {
   maxDrift: 0.15,
   channels: 64,
   pitchUm: 20,
-  otherMedianHz: 4,
+  otherMedianHz: 2.5,
 };
 
 /**

@@ -37,7 +37,7 @@ export interface PopulationMix {
  * REFERENCES.md "Light identification"; ranges: common practice):
  * - light-identified (direct) units: slow and regular (median 2 Hz, gamma
  *   shape 3-10, wide waveforms, as expected of serotonergic cells), latency
- *   2-6.5 ms, jitter 0.3-2 ms, reliability 0.2-0.95, half-following
+ *   lognormal around 3.5 ms (SD 0.3 in log, clamped to 1.5-7 ms), jitter 0.3-2 ms, reliability 0.2-0.95, half-following
  *   frequency 15-40 Hz, latency growth 0.5-3 ms;
  * - indirect responders: latency 7-20 ms, jitter 2.5-7 ms, reliability
  *   0.15-0.6, half-following 4-12 Hz, up to one extra spike on average;
@@ -93,7 +93,7 @@ export function populationUnits(n: number, seed: number, mix: PopulationMix): Un
       waveform = { kind: pick(['wide', 'wide', 'triphasic'] as const), amplitudeUv: u(50, 180), troughToPeakMs: u(0.7, 1.2) };
       light = {
         kind,
-        latencyMs: u(2, 6.5),
+        latencyMs: Math.min(7, Math.max(1.5, 3.5 * Math.exp(0.3 * rng.normal()))),
         jitterMs: u(0.3, 2),
         reliability: u(0.2, 0.95),
         followHalfHz: u(15, 40),

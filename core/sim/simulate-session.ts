@@ -14,6 +14,7 @@ import { lightEvokedSpikes } from './light-evoked-spikes';
 import { lightSchedule, type LightSchedule } from './light-schedule';
 import { mergeRefractory } from './merge-refractory';
 import { multiplyProfiles } from './multiply-profiles';
+import { profileIntegral } from './profile-integral';
 import type { RateProfile } from './rate-profile';
 import { streamSeed } from './stream-seed';
 import { taskProfile } from './task-profile';
@@ -84,7 +85,8 @@ export function simulateSession(spec: ScenarioSpec): SimulatedSession {
     waveforms.set(w, i * ns);
     evokedWaveforms.set(u.light.kind === 'artefact' ? artefactWaveform(u.waveform.amplitudeUv * 1.5, ns, fs) : w, i * ns);
     units.push({ id: u.id, spikeTimes: merged.times, meta: { channel: u.channel, depth_um: u.depthUm }, waveformMean: w });
-    truth.push(unitTruth(u, profile, task, merged.times.length / end));
+    const nEvoked = merged.evoked.reduce((a, b) => a + b, 0);
+    truth.push(unitTruth(u, profile, task, merged.times.length / end, profileIntegral(profile, 0, end) / end, nEvoked));
   });
 
   const recording: Recording = {
@@ -99,7 +101,14 @@ export function simulateSession(spec: ScenarioSpec): SimulatedSession {
   return { spec, recording, truth, evoked: evokedMasks, waveforms, evokedWaveforms };
 }
 
-function unitTruth(u: UnitSpec, profile: RateProfile, task: TaskSchedule | null, realisedRateHz: number): UnitTruth {
+function unitTruth(
+  u: UnitSpec,
+  profile: RateProfile,
+  task: TaskSchedule | null,
+  realisedRateHz: number,
+  expectedRateHz: number,
+  evokedSpikes: number,
+): UnitTruth {
   const L = u.light;
   const lightTiming =
     L.kind === 'direct' || L.kind === 'indirect'
@@ -144,6 +153,8 @@ function unitTruth(u: UnitSpec, profile: RateProfile, task: TaskSchedule | null,
     ...lightTiming,
     rateHz: u.rateHz,
     realisedRateHz,
+    expectedRateHz,
+    evokedSpikes,
     shape: u.shape,
     ramp: rampGain > 0 ? 'up' : rampGain < 0 ? 'down' : 'flat',
     rampGain,

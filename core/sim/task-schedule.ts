@@ -22,9 +22,10 @@ export interface TaskSchedule {
 /**
  * Draws the auditory-countdown trials from `startS` (s). Trial i: start;
  * `sweep_on` after preSweepS; a condition drawn by weight; on probe
- * conditions a `jump` of a random kind at a uniform time in jumpAfterS after
+ * conditions a `jump` at a uniform time in jumpAfterS after
  * sweep_on, which moves the sweep forward (reward jumpShiftS earlier) or back
- * (later); `reward` when the sweep reaches its top; stop postRewardS later;
+ * (later), kinds counterbalanced (every run of len(jumpKinds) probe trials
+ * holds each kind once, in random order); `reward` when the sweep reaches its top; stop postRewardS later;
  * a uniform inter-trial interval before the next start. Trials are numbered
  * from 1. trials.covariates: `sweep_s` (nominal sweep length) and
  * `jump_shift_s` (signed shift, 0 on trials without a jump).
@@ -61,6 +62,7 @@ export function taskSchedule(spec: TaskSpec, startS: number, rng: Rng): TaskSche
     evTrial.push(tr);
     evKind.push(kind);
   };
+  const kindBag: ('forward' | 'backward')[] = [];
   let t = startS;
   for (let i = 0; i < n; i++) {
     if (i > 0) t = stop[i - 1] + uniformIn(spec.itiS);
@@ -81,7 +83,11 @@ export function taskSchedule(spec: TaskSpec, startS: number, rng: Rng): TaskSche
     push(sweepOnS[i], 'sweep_on', i + 1, '');
     let kind = '';
     if (cond.probe && spec.jumpKinds.length > 0) {
-      kind = spec.jumpKinds[rng.int(spec.jumpKinds.length)];
+      if (kindBag.length === 0) {
+        kindBag.push(...spec.jumpKinds);
+        shuffleInPlace(rng, kindBag);
+      }
+      kind = kindBag.pop()!;
       jumpS[i] = sweepOnS[i] + uniformIn(spec.jumpAfterS);
       jumpShiftS[i] = kind === 'forward' ? spec.jumpShiftS : -spec.jumpShiftS;
       push(jumpS[i], 'jump', i + 1, kind);
@@ -102,4 +108,13 @@ export function taskSchedule(spec: TaskSpec, startS: number, rng: Rng): TaskSche
     jumpShiftS,
     endS: n > 0 ? stop[n - 1] : startS,
   };
+}
+
+function shuffleInPlace<T>(rng: Rng, xs: T[]): void {
+  for (let i = xs.length - 1; i > 0; i--) {
+    const j = rng.int(i + 1);
+    const t = xs[i];
+    xs[i] = xs[j];
+    xs[j] = t;
+  }
 }

@@ -39,7 +39,7 @@ export interface TaskSpec {
   readonly jumpAfterS: readonly [number, number];
   /** How far the sweep jumps, in seconds of sweep. */
   readonly jumpShiftS: number;
-  /** Jump kinds drawn with equal probability on probe trials. */
+  /** Jump kinds of probe trials, counterbalanced (each kind once per run of probe trials, random order). */
   readonly jumpKinds: readonly ('forward' | 'backward')[];
   /** Step of the piecewise-constant ramp approximation, s. */
   readonly rampStepS: number;
@@ -217,6 +217,13 @@ export interface UnitTruth {
   /** Spontaneous rate asked for, Hz, and spikes / span as realised. */
   readonly rateHz: number;
   readonly realisedRateHz: number;
+  /**
+   * Expected rate of the unit's non-evoked firing over the span: the integral
+   * of its rate profile (drift, task answers, light inhibition) / span, Hz.
+   */
+  readonly expectedRateHz: number;
+  /** Number of light-evoked spikes kept (direct, indirect or artefact answers). */
+  readonly evokedSpikes: number;
   readonly shape: number;
   readonly ramp: RampClass;
   /** Ramp gain asked for (0 for flat). */
