@@ -1,0 +1,39 @@
+import Plotly from 'plotly.js-dist-min';
+import { useEffect, useRef } from 'react';
+import type { FigureSpec } from '../../core/figures/theme';
+
+/** Plotly options shared by every figure on screen. */
+export const PLOT_CONFIG = {
+  displaylogo: false,
+  responsive: true,
+  modeBarButtonsToRemove: ['select2d', 'lasso2d', 'autoScale2d', 'toggleSpikelines', 'hoverClosestCartesian', 'hoverCompareCartesian'],
+  toImageButtonOptions: { format: 'svg', scale: 1 },
+} as const;
+
+/**
+ * Draws one figure spec (plain Plotly JSON from core/figures). Redraws with
+ * Plotly.react when the spec changes; frees the plot on unmount. Marks itself
+ * data-drawn="true" once drawn (the end-to-end tests wait on it).
+ */
+export function Plot({ spec, testId }: { spec: FigureSpec; testId?: string }) {
+  const ref = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    el.dataset.drawn = 'false';
+    let live = true;
+    void Plotly.react(el, spec.data as Plotly.Data[], spec.layout as Partial<Plotly.Layout>, PLOT_CONFIG as unknown as Partial<Plotly.Config>).then(() => {
+      if (live) el.dataset.drawn = 'true';
+    });
+    return () => {
+      live = false;
+    };
+  }, [spec]);
+  useEffect(() => {
+    const el = ref.current;
+    return () => {
+      if (el) Plotly.purge(el);
+    };
+  }, []);
+  return <div className="plot" ref={ref} data-testid={testId} />;
+}
