@@ -84,12 +84,21 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
     return filterRows(session.analysis.table, sorted, filterResult.terms, session.unitIds);
   }, [session, tableView.sortColumn, tableView.direction, filterResult]);
 
+  // Progress messages come over their own channel and may arrive after the
+  // result: only the run still in progress may update the progress bar.
+  const activeRun = useRef(0);
   const run = useCallback(async <T,>(label: string, cancellable: boolean, work: (onProgress: (p: Progress) => void) => Promise<T>): Promise<T> => {
+    const token = ++activeRun.current;
     setBusy({ label, done: 0, total: 1, cancellable });
     try {
-      return await work((p) => setBusy({ ...p, cancellable }));
+      return await work((p) => {
+        if (activeRun.current === token) setBusy({ ...p, cancellable });
+      });
     } finally {
-      setBusy(null);
+      if (activeRun.current === token) {
+        activeRun.current++;
+        setBusy(null);
+      }
     }
   }, []);
 

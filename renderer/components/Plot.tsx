@@ -1,6 +1,7 @@
-import Plotly from 'plotly.js-dist-min';
+import type Plotly from 'plotly.js-dist-min';
 import { useEffect, useRef } from 'react';
 import type { FigureSpec } from '../../core/figures/theme';
+import { loadPlotly } from './load-plotly';
 
 /** Plotly options shared by every figure on screen. */
 export const PLOT_CONFIG = {
@@ -22,9 +23,11 @@ export function Plot({ spec, testId }: { spec: FigureSpec; testId?: string }) {
     if (!el) return;
     el.dataset.drawn = 'false';
     let live = true;
-    void Plotly.react(el, spec.data as Plotly.Data[], spec.layout as Partial<Plotly.Layout>, PLOT_CONFIG as unknown as Partial<Plotly.Config>).then(() => {
-      if (live) el.dataset.drawn = 'true';
-    });
+    void loadPlotly()
+      .then((P) => (live ? P.react(el, spec.data as Plotly.Data[], spec.layout as Partial<Plotly.Layout>, PLOT_CONFIG as unknown as Partial<Plotly.Config>) : null))
+      .then(() => {
+        if (live) el.dataset.drawn = 'true';
+      });
     return () => {
       live = false;
     };
@@ -32,7 +35,7 @@ export function Plot({ spec, testId }: { spec: FigureSpec; testId?: string }) {
   useEffect(() => {
     const el = ref.current;
     return () => {
-      if (el) Plotly.purge(el);
+      if (el) void loadPlotly().then((P) => P.purge(el));
     };
   }, []);
   return <div className="plot" ref={ref} data-testid={testId} />;

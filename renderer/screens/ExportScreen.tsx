@@ -1,4 +1,5 @@
-import Plotly from 'plotly.js-dist-min';
+import type Plotly from 'plotly.js-dist-min';
+import { loadPlotly } from '../components/load-plotly';
 import { useEffect, useState } from 'react';
 import type { EventResponseOptions } from '../../core/figures/event-response-figure';
 import type { FigureSpec } from '../../core/figures/theme';
@@ -75,7 +76,7 @@ export function ExportScreen(props: {
       `${f.name}.${format}`,
       async () => {
         const height = Number((f.spec.layout as { height?: number }).height) || 450;
-        const url = await Plotly.toImage({ data: f.spec.data as Plotly.Data[], layout: f.spec.layout as Partial<Plotly.Layout> }, { format, width: EXPORT_WIDTH, height, scale: format === 'png' ? 2 : 1 });
+        const url = await (await loadPlotly()).toImage({ data: f.spec.data as Plotly.Data[], layout: f.spec.layout as Partial<Plotly.Layout> }, { format, width: EXPORT_WIDTH, height, scale: format === 'png' ? 2 : 1 });
         return dataUrlBytes(url);
       },
       format === 'svg' ? 'image/svg+xml' : 'image/png',
