@@ -1,0 +1,13 @@
+/**
+ * The CLI's sub-commands, in the order `tagbench --help` lists them.
+ * To add one: write core/node/commands/<name>.ts exporting a Command, and
+ * add a line here.
+ */
+import { inspectCommand } from './inspect';
+import { runCommand } from './run';
+import type { Command } from './types';
+
+export const COMMANDS: readonly Command[] = [
+  runCommand,
+  inspectCommand,
+];

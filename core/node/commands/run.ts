@@ -1,0 +1,89 @@
+import { readFileSync, existsSync, statSync } from 'node:fs';
+import { basename, resolve } from 'node:path';
+import { InputError } from '../../errors';
+import { analyseRecording } from '../../pipeline/analyse-recording';
+import { resolveParameters } from '../../resolve-parameters';
+import { formatDelimited } from '../../table/format-delimited';
+import { loadSession } from '../load-session';
+import { parseCliArgs } from '../parse-cli-args';
+import { toolVersion } from '../tool-version';
+import { writeOutputFolder } from '../write-output-folder';
+import type { Command } from './types';
+
+/**
+ * `tagbench run <session> --out <dir> [--config analysis.json]`: imports,
+ * analyses and writes units.csv and run.json (DESIGN.md section 3) through
+ * writeOutputFolder (nothing half-written; an earlier output is replaced).
+ */
+export const runCommand: Command = {
+  name: 'run',
+  summary: 'Analyse a session and write units.csv and run.json',
+  usage: [
+    'Usage: tagbench run <session-dir|file.nwb> --out <out-dir> [--config analysis.json]',
+    '',
+    '  --out <dir>       output folder (created; an earlier tagbench output there is replaced)',
+    '  --config <file>   analysis parameters as JSON sections, e.g. {"light": {"windowEndMs": 8}};',
+    '                    applied after the session\'s own "parameters"',
+    '',
+    'Writes <out-dir>/units.csv (one row per unit) and <out-dir>/run.json (tool version,',
+    'parameters, SHA-256 and size of every input file, warnings, step summaries, time).',
+    'Exit codes: 0 success; 2 bad input (one paragraph on stderr); 1 internal error.',
+  ].join('\n'),
+  async run(argv, io) {
+    const a = parseCliArgs(argv, 'run', ['--out', '--config']);
+    if (a.flags.has('--help') || a.flags.has('-h')) {
+      io.stdout(`${this.usage}\n`);
+      return 0;
+    }
+    if (a.positionals.length !== 1) {
+      throw new InputError({ file: 'tagbench run', problem: a.positionals.length ? 'expects one session, got several' : 'expects the session folder or .nwb file', fix: 'run "tagbench run <session-dir> --out <out-dir>"' });
+    }
+    const out = a.options['--out'];
+    if (!out) throw new InputError({ file: 'tagbench run', problem: 'the --out folder is missing', fix: 'add --out <out-dir>' });
+    const session = a.positionals[0];
+    const started = new Date();
+    const extra: { file: string; overrides: unknown }[] = [];
+    if (a.options['--config']) {
+      const cfg = a.options['--config'];
+      if (!existsSync(cfg) || !statSync(cfg).isFile()) throw new InputError({ file: cfg, problem: 'the --config file does not exist' });
+      let text = readFileSync(cfg, 'utf8');
+      if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+      try {
+        extra.push({ file: basename(cfg), overrides: JSON.parse(text) });
+      } catch (e) {
+        throw new InputError({ file: basename(cfg), problem: `not valid JSON (${(e as Error).message})` });
+      }
+    }
+    const imported = await loadSession(session, { parameterSources: extra });
+    const parameters = resolveParameters(imported.parameterSources);
+    const analysis = analyseRecording(imported.recording, parameters);
+    const rec = imported.recording;
+    const runRecord = {
+      tool: 'tagbench',
+      version: toolVersion(),
+      command: 'run',
+      startedAt: started.toISOString(),
+      finishedAt: new Date().toISOString(),
+      session: { name: imported.name, path: resolve(session), kind: imported.sourceKind },
+      inputs: imported.inputs,
+      parameterFiles: imported.parameterSources.map((s) => s.file),
+      parameters,
+      recording: {
+        units: rec.units.length,
+        spikes: rec.units.reduce((n, u) => n + u.spikeTimes.length, 0),
+        spanS: rec.span,
+        spanSource: rec.spanSource,
+        pulses: rec.pulses.onset.length,
+        events: rec.events.time.length,
+        trials: rec.trials.trial.length,
+      },
+      warnings: [...imported.warnings, ...analysis.warnings],
+      steps: analysis.summaries,
+      columns: analysis.table.columns.map((c) => ({ name: c.name, description: c.description })),
+    };
+    writeOutputFolder(out, { 'units.csv': formatDelimited(analysis.table), 'run.json': `${JSON.stringify(runRecord, null, 2)}\n` }, statSync(session).isDirectory() ? session : undefined);
+    const w = runRecord.warnings.length;
+    io.stdout(`tagbench run: ${rec.units.length} units -> ${resolve(out)}/units.csv, run.json${w ? ` (${w} warning${w > 1 ? 's' : ''}: see run.json)` : ''}\n`);
+    return 0;
+  },
+};

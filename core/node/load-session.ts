@@ -1,0 +1,50 @@
+/**
+ * Opens a session for the CLI and the desktop app: a session folder (read by
+ * core/io/import-session.ts through the file-system source) or an NWB file.
+ *
+ * NWB dispatch point (the one place NWB input enters): a path ending in .nwb,
+ * or a folder whose session.json has an "nwb" section ({"nwb": {"file": ...,
+ * ...settings}}), goes to loadNwbSession with the path and the section as
+ * given. Its validation belongs to the NWB reader.
+ *
+ * Errors: InputError for a missing path, a file that is neither a folder nor
+ * .nwb, and everything the importers report.
+ */
+import { existsSync, readFileSync, statSync } from 'node:fs';
+import { basename, extname, join } from 'node:path';
+import { InputError } from '../errors';
+import { importSession, MANIFEST_FILE, type ImportOptions } from '../io/import-session';
+import type { ImportResult } from '../io/import-result';
+import { parseManifest } from '../io/parse-manifest';
+import { createFsSessionSource } from './create-fs-session-source';
+import { loadNwbSession } from './load-nwb-session';
+import { nodeSha256 } from './node-sha256';
+
+export async function loadSession(path: string, options: ImportOptions = {}): Promise<ImportResult> {
+  const opts: ImportOptions = { createHash: nodeSha256, ...options };
+  if (!existsSync(path)) {
+    throw new InputError({ file: path, problem: 'no such file or folder', fix: 'give a session folder (spikes.csv, pulses.csv, ...) or an .nwb file' });
+  }
+  const st = statSync(path);
+  if (st.isFile()) {
+    if (extname(path).toLowerCase() === '.nwb') return loadNwbSession(path, undefined, opts);
+    throw new InputError({ file: basename(path), problem: 'is a file, but a session is a folder of tables or an .nwb file', fix: 'give the folder that holds this file' });
+  }
+  const manifestPath = join(path, MANIFEST_FILE);
+  if (existsSync(manifestPath)) {
+    let text = readFileSync(manifestPath, 'utf8');
+    if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+    const m = parseManifest(text, MANIFEST_FILE);
+    if (m.nwb !== undefined) {
+      const sec = m.nwb as { file?: unknown } | null;
+      if (typeof sec !== 'object' || sec === null || typeof sec.file !== 'string') {
+        throw new InputError({ file: MANIFEST_FILE, column: 'nwb.file', problem: 'the nwb section needs the NWB file name', fix: 'write "nwb": {"file": "session.nwb"}' });
+      }
+      const nwbPath = join(path, sec.file);
+      if (!existsSync(nwbPath)) throw new InputError({ file: MANIFEST_FILE, column: 'nwb.file', value: sec.file, problem: 'names a file that is not in the session folder' });
+      const params = m.parameters !== undefined ? [{ file: MANIFEST_FILE, overrides: m.parameters }] : [];
+      return loadNwbSession(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] });
+    }
+  }
+  return importSession(createFsSessionSource(path), opts);
+}

@@ -1,0 +1,135 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { InputError } from '../../../core/errors';
+import { createDelimitedParser, type ColumnSpec, type DelimitedTable } from '../../../core/io/create-delimited-parser';
+
+const enc = (s: string) => new TextEncoder().encode(s);
+const SPIKE_COLS: ColumnSpec[] = [
+  { name: 'unit', kind: 'code', required: true },
+  { name: 'time', kind: 'number', required: true },
+];
+
+function parse(text: string | Uint8Array, columns: ColumnSpec[] = SPIKE_COLS, chunk = 0, keepExtra = false): DelimitedTable {
+  const bytes = typeof text === 'string' ? enc(text) : text;
+  const p = createDelimitedParser({ file: 'spikes.csv', columns, keepExtra });
+  if (chunk <= 0) p.push(bytes);
+  else for (let i = 0; i < bytes.length; i += chunk) p.push(bytes.slice(i, i + chunk));
+  return p.finish();
+}
+const units = (t: DelimitedTable) => {
+  const c = t.codes.get('unit')!;
+  return Array.from(c.codes, (k) => c.dictionary[k]);
+};
+const times = (t: DelimitedTable) => Array.from(t.numbers.get('time')!);
+function errorOf(f: () => unknown): string {
+  try {
+    f();
+  } catch (e) {
+    expect(e).toBeInstanceOf(InputError);
+    return (e as Error).message;
+  }
+  throw new Error('expected an InputError');
+}
+
+describe('createDelimitedParser', () => {
+  it('reads comma, tab and semicolon files alike, with BOM and CRLF', () => {
+    for (const text of [
+      'unit,time\n1,0.5\n2,1.25\n',
+      '\uFEFFunit\ttime\r\n1\t0.5\r\n2\t1.25\r\n',
+      'unit;time\n1;0,5\n2;1,25',
+      '"unit","time"\n"1","0.5"\n"2", 1.25 \n',
+    ]) {
+      const t = parse(text);
+      expect(units(t)).toEqual(['1', '2']);
+      expect(times(t)).toEqual([0.5, 1.25]);
+    }
+    expect(parse('unit\ttime\n1\t2\n').delimiter).toBe('\t');
+    expect(parse('unit;time\n1;2\n').delimiter).toBe(';');
+  });
+
+  it('gives the same result for every chunking (1..17 bytes and whole)', () => {
+    const text = '\uFEFFunit,time,"note, with comma"\r\n7,1e-3,"say ""hi"""\r\n\r\nA 3,2.5,"two\nlines"\n007,-0,x\n12345678901,12.000000000000001,\n';
+    const cols: ColumnSpec[] = [...SPIKE_COLS, { name: 'note, with comma', kind: 'text', required: true }];
+    const whole = parse(text, cols);
+    expect(units(whole)).toEqual(['7', 'A 3', '007', '12345678901']);
+    expect(times(whole)).toEqual([1e-3, 2.5, -0, 12.000000000000001]);
+    expect(whole.texts.get('note, with comma')).toEqual(['say "hi"', 'two\nlines', 'x', '']);
+    // header line 1, row 2, blank line 3, rows at lines 4 (two lines long), 6, 7
+    expect([0, 1, 2, 3].map((i) => whole.rowOf(i))).toEqual([2, 4, 6, 7]);
+    for (let k = 1; k <= 17; k++) {
+      const t = parse(text, cols, k);
+      expect(units(t)).toEqual(units(whole));
+      expect(times(t)).toEqual(times(whole));
+      expect(t.texts.get('note, with comma')).toEqual(whole.texts.get('note, with comma'));
+      expect([0, 1, 2, 3].map((i) => t.rowOf(i))).toEqual([2, 4, 6, 7]);
+    }
+  });
+
+  it('parses numbers exactly as Number() does (fast path and fallback)', () => {
+    // Reference: ECMAScript Number() string conversion (correctly rounded, IEEE 754).
+    fc.assert(
+      fc.property(fc.array(fc.double({ noNaN: true, noDefaultInfinity: true }), { minLength: 1, maxLength: 20 }), (xs) => {
+        const text = `unit,time\n${xs.map((x) => `1,${String(x)}`).join('\n')}\n`;
+        expect(times(parse(text))).toEqual(xs.map((x) => Number(String(x))));
+      }),
+    );
+    const forms = ['1.5E+3', '.5', '5.', '-2e-5', '0.1', '123456789012345678', '1e-320', '+7', '0000.25'];
+    expect(times(parse(`unit,time\n${forms.map((f) => `1,${f}`).join('\n')}`))).toEqual(forms.map(Number));
+  });
+
+  it('reads nan and inf spellings for the validator to judge, and allows empty optional cells', () => {
+    const cols: ColumnSpec[] = [...SPIKE_COLS, { name: 'power', kind: 'number', required: false, allowEmpty: true }];
+    const t = parse('unit,time,power\n1,NaN,\n1,inf,2\n1,-Infinity,3\n', cols);
+    expect(times(t)).toEqual([NaN, Infinity, -Infinity]);
+    expect(Array.from(t.numbers.get('power')!)).toEqual([NaN, 2, 3]);
+  });
+
+  it('keeps extra columns, numeric when every cell is a number', () => {
+    const t = parse('unit,time,speed,cue\n1,1,2.5,a\n1,2,,b\n', SPIKE_COLS, 0, true);
+    expect(Array.from(t.extra.get('speed') as Float64Array)).toEqual([2.5, NaN]);
+    expect(t.extra.get('cue')).toEqual(['a', 'b']);
+  });
+
+  it('lists columns it ignores', () => {
+    expect(parse('unit,time,amplitude\n1,1,30\n').ignored).toEqual(['amplitude']);
+  });
+
+  it('interns ids consistently across fast and slow paths', () => {
+    const t = parse('unit,time\n5,1\n"5",2\n 5 ,3\n05,4\n');
+    expect(units(t)).toEqual(['5', '5', '5', '05']);
+    expect(t.codes.get('unit')!.dictionary).toEqual(['5', '05']);
+  });
+
+  it('skips blank lines and tolerates a missing final newline', () => {
+    const t = parse('\nunit,time\n\n1,1\n  \n2,2');
+    expect(times(t)).toEqual([1, 2]);
+    expect([t.rowOf(0), t.rowOf(1)]).toEqual([4, 6]);
+  });
+
+  it.each([
+    ['', /spikes\.csv: the file is empty/],
+    ['\uFEFF\n\n', /spikes\.csv: the file is empty/],
+    ['unit,t\n1,2\n', /spikes\.csv, row 1, column "time": required column "time" is missing; the header has: unit, t/],
+    ['unit time\n1 2\n', /the header was read as one column "unit time"/],
+    ['unit,time\n1,2\n1,abc\n', /spikes\.csv, row 3, column "time": the value is not a number \(value "abc"\)/],
+    ['unit,time\n1,\n', /row 2, column "time": the value is empty/],
+    ['unit,time\n1,2,3\n', /row 2: this row has more fields than the header's 2/],
+    ['unit,time,x\n1,2\n', /row 2: this row has 2 field\(s\) but the header has 3/],
+    ['unit,time\n1,"2\n', /row 2, column "time": a quoted value is not closed/],
+    ['unit,time\n"1"x,2\n', /row 2, column "unit": text follows a closing quote/],
+    ['unit,time,unit\n1,2,3\n', /row 1, column "unit": the header names column "unit" twice/],
+    ['unit,time\n1,1.2.3\n', /row 2, column "time": the value is not a number \(value "1.2.3"\)/],
+  ])('error for %j', (text, re) => {
+    expect(errorOf(() => parse(text))).toMatch(re);
+    expect(errorOf(() => parse(text, SPIKE_COLS, 1))).toMatch(re);
+  });
+
+  it('header-only file gives zero rows', () => {
+    expect(parse('unit,time\n').rowCount).toBe(0);
+  });
+
+  it('decodes UTF-8 ids', () => {
+    const t = parse('unit,time\nμ-1,1\n"unité 2",2\n');
+    expect(units(t)).toEqual(['μ-1', 'unité 2']);
+  });
+});
