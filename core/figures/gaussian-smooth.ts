@@ -14,7 +14,7 @@ export function gaussianSmooth(values: ArrayLike<number>, sdBins: number): Float
     for (let i = 0; i < n; i++) out[i] = values[i];
     return out;
   }
-  const half = Math.ceil(4 * sdBins);
+  const half = Math.max(1, Math.floor(4 * sdBins + 0.5)); // radius as SciPy: int(truncate * sd + 0.5)
   const w = new Float64Array(2 * half + 1);
   for (let k = -half; k <= half; k++) w[k + half] = Math.exp(-(k * k) / (2 * sdBins * sdBins));
   for (let i = 0; i < n; i++) {

@@ -8,6 +8,7 @@ import type { FigureSpec } from '../../core/figures/theme';
 import type { EventResponseOptions } from '../../core/figures/event-response-figure';
 import type { RecordingSummary } from '../../core/model/summarise-recording';
 import type { Warning } from '../../core/model/types';
+import type { InputFileRecord } from '../../core/io/import-result';
 
 /** One file of a session handed to the worker (File from an input, or a Blob read through the desktop bridge). */
 export interface SessionFileInput {
@@ -47,6 +48,8 @@ export interface OpenOutcome extends AnalysisOutcome {
   readonly timeline: FigureSpec;
   /** Event labels, kinds and whether trials carry conditions (for the Event response controls). */
   readonly eventLabels: readonly string[];
+  /** Every input file read, with its SHA-256 (provenance of exports). */
+  readonly inputs: readonly InputFileRecord[];
 }
 
 /** A figure placed in a section of the Unit page. */

@@ -10,7 +10,9 @@ import { formatDelimited } from '../../core/table/format-delimited';
 import type { Column, UnitTable } from '../../core/table/types';
 import { STEPS } from '../../core/pipeline/steps';
 import type { AnalysisOutcome, OpenOutcome, PlacedFigure, PopulationView, Progress, SessionFileInput, TableData, UnitView, WorkbenchApi } from './api';
-import { readCsvSession } from './read-csv-session';
+import { importSession } from '../../core/io/import-session';
+import type { InputFileRecord } from '../../core/io/import-result';
+import { createBlobSessionSource } from './blob-session-source';
 
 /**
  * The worker's engine: holds the imported recording and the last analysis,
@@ -21,31 +23,32 @@ export class WorkbenchEngine implements WorkbenchApi {
   private recording: Recording | null = null;
   private parameters: Parameters | null = null;
   private table: UnitTable | null = null;
+  private sessionParameters: readonly { file: string; overrides: unknown }[] = [];
+  private inputs: readonly InputFileRecord[] = [];
 
   async open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome> {
-    onProgress({ label: 'Reading files', done: 0, total: files.length });
-    const texts = new Map<string, string>();
-    for (const [i, f] of files.entries()) {
-      if (/\.csv$/i.test(f.name)) texts.set(f.name, await f.blob.text());
-      onProgress({ label: `Reading ${f.name}`, done: i + 1, total: files.length });
-    }
-    const recording = readCsvSession(texts);
-    this.recording = recording;
+    onProgress({ label: `Importing ${name}`, done: 0, total: 1 });
+    const imported = await importSession(createBlobSessionSource(name, files));
+    this.recording = imported.recording;
+    this.sessionParameters = imported.parameterSources;
+    this.inputs = imported.inputs;
     const outcome = await this.analyse(overrides, onProgress);
     return {
       ...outcome,
       name,
-      summary: summariseRecording(recording),
-      importWarnings: [],
-      timeline: sessionTimelineFigure(recording),
-      eventLabels: [...new Set(recording.events.label)],
+      summary: summariseRecording(imported.recording),
+      importWarnings: imported.warnings,
+      timeline: sessionTimelineFigure(imported.recording),
+      eventLabels: [...new Set(imported.recording.events.label)],
+      inputs: imported.inputs,
     };
   }
 
   async analyse(overrides: unknown, onProgress: (p: Progress) => void): Promise<AnalysisOutcome> {
     const rec = this.need();
     const t0 = performance.now();
-    const parameters = resolveParameters([{ file: 'Analysis settings', overrides }]);
+    // The session's own parameters (session.json) first, then the workbench's settings.
+    const parameters = resolveParameters([...this.sessionParameters, { file: 'Analysis settings', overrides }]);
     const columns = new Map<string, Column>();
     const warnings: Warning[] = [];
     STEPS.forEach((step, i) => {
