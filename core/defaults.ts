@@ -26,24 +26,139 @@ export const DEFAULTS = {
     maxLatencyMs: 6,
     /** Waveform correlation needed when waveforms exist (common practice). */
     minWaveformR: 0.9,
+    /**
+     * Light-free time before each pulse cut into SALT baseline windows, ms
+     * (50 windows of 10 ms: 1,225 null distances, p resolution 0.0008).
+     * Common practice: a few hundred ms before the pulse.
+     */
+    saltBaselineMs: 500,
+    /** Fewest baseline windows SALT runs with (REFERENCES.md: p < 0.01 needs >= ~15 windows). */
+    saltMinWindows: 15,
+    /** Share of pulses that must keep the full baseline before fewer windows are used (own choice). */
+    saltMinPulseFraction: 0.8,
+    /**
+     * Time after each pulse's end (or after its test window, whichever is later)
+     * treated as light-affected and kept out of every baseline, ms (common practice:
+     * covers rebound and indirect answers).
+     */
+    lightGuardMs: 100,
+    /** Count test (exact Poisson) threshold used for the borderline call and the SALT pitfall. */
+    alphaCount: 0.01,
+    /**
+     * Least excess reliability (window spike probability minus the baseline windows') of a
+     * `tagged` unit; below it a significant unit is `borderline` (unreliable). Own choice,
+     * well below the 0.3-0.5 reliability criteria in use (REFERENCES.md, from memory).
+     */
+    minEvokedReliability: 0.1,
+    /** Jitter below this is an artefact signature (photoelectric artefacts have ~zero jitter), ms (common practice). */
+    artefactJitterMs: 0.2,
+    /** Latency below this is faster than a light-gated channel fires a spike, ms (common practice). */
+    artefactMinLatencyMs: 1,
+    /** Window after pulse offset searched for offset-locked answers, ms (common practice). */
+    offsetWindowMs: 2,
+    /** Waveform snippet before / after the spike time, ms (common practice). */
+    waveformPreMs: 1,
+    waveformPostMs: 2,
+    /** Channels compared (the best channel first, then the largest spontaneous peak-to-peak). */
+    waveformChannels: 4,
+    /** Most spikes averaged per mean waveform (evenly spread over the session). */
+    waveformMaxSpikes: 500,
+    /** Fewest evoked or spontaneous spikes for a waveform correlation. */
+    waveformMinSpikes: 10,
+    /** Null units simulated per (rate, ISI CV) cell for the false-identification estimate. */
+    trustNullSimulations: 200,
+    /** Simulated responders per reliability step of the power search. */
+    trustPowerSimulations: 40,
+    /** Latency and jitter of the simulated responders of the power search, ms (common practice for direct answers). */
+    trustPowerLatencyMs: 4,
+    trustPowerJitterMs: 1,
+    /** Power asked of the smallest detectable reliability. */
+    trustPower: 0.8,
+    /** Seed of the trust simulation (results are bit-for-bit reproducible). */
+    seed: 1,
   },
-  /** Ramp before reward. */
+  /** Ramp before reward (DESIGN.md section 4; issue 5). */
   ramp: {
+    /** Alignment event label. */
     event: 'reward',
+    /** Window relative to the event, s. */
     windowStartS: -3,
     windowEndS: 0,
+    /** Reference condition ("" = all trials; all trials also when trials carry no condition). */
     condition: 'standard',
+    /** Bin width for the per-trial slopes and the GLM, s. */
     binS: 0.1,
+    /** BH FDR level of the up/down verdict. */
     alpha: 0.05,
+    /** Fewest trials for the signed-rank test: with 5 the two-sided exact p cannot go below 0.0625 (derived). */
+    minTrials: 6,
+    /** Largest trial count for the exact signed-rank distribution; above it the normal approximation (common practice). */
+    exactMaxN: 30,
   },
-  /** Transient answers to task-state jumps. */
+  /** Transient answers to task-state jumps (DESIGN.md section 4; issue 5). */
   jump: {
+    /** Alignment event label; events are grouped by their `kind`. */
     event: 'jump',
+    /** Answer window and pre-event window, s relative to the jump. */
     postStartS: 0,
     postEndS: 0.3,
     preStartS: -0.3,
     preEndS: 0,
+    /** Later window for the transient-versus-step comparison, s (issue 5). */
+    lateStartS: 0.5,
+    lateEndS: 1,
+    /** BH FDR level of the excited/suppressed verdict (per kind, across units). */
     alpha: 0.05,
+    /** Condition of the trials that serve as matched control ("" = no control). */
+    controlCondition: 'standard',
+    /** Fewest events of a kind for the test (as ramp.minTrials; derived). */
+    minEvents: 6,
+    exactMaxN: 30,
+    /** PSTH bin for latency and peak, s (common practice). */
+    psthBinS: 0.01,
+    /** Latency: first of this many consecutive PSTH bins beyond zThreshold (common practice). */
+    latencyRunBins: 2,
+    zThreshold: 2,
+    /** Trial covariate holding a numeric jump size ("" = none); answer vs size by Spearman. */
+    sizeCovariate: 'jump_size',
+  },
+  /** Population clusters of trial-averaged responses (issue 5). */
+  cluster: {
+    /** Candidate numbers of clusters; the best mean silhouette wins. */
+    kMin: 2,
+    kMax: 6,
+    /** k-means restarts per k and the first seed. */
+    restarts: 10,
+    seed: 1,
+    /** Principal components kept for clustering (at most this many; fewer when the data have fewer). */
+    components: 5,
+    /** Bin of the trial-averaged responses that are clustered, s (common practice). */
+    binS: 0.1,
+    /** Fewest units with a response needed to cluster. */
+    minUnits: 8,
+  },
+  /** Rasters, PSTHs and indicator predictions (issue 4); widths and windows: common practice. */
+  align: {
+    /** Event label to align on when none is given. */
+    event: 'reward',
+    /** Window around the event, s. */
+    windowStartS: -3,
+    windowStopS: 2,
+    /** PSTH bin width, ms. */
+    binMs: 50,
+    /** PSTH smoothing: none | gaussian | exponential | boxcar; width in ms (Gaussian SD). */
+    smoothing: 'gaussian',
+    smoothingWidthMs: 50,
+    /** Confidence band: sem | bootstrap | none; bootstrap coverage, resamples and seed. */
+    band: 'sem',
+    bandLevel: 0.95,
+    bootstrapResamples: 1000,
+    seed: 1,
+    /** Trial grouping: none | condition | kind. */
+    groupBy: 'condition',
+    /** Indicator kernel (library name) and sample rate of predicted traces, Hz. */
+    kernel: 'jGCaMP8m',
+    predictRateHz: 30,
   },
   /** Unit quality. */
   quality: {
@@ -51,6 +166,22 @@ export const DEFAULTS = {
     refractoryMs: 1.5,
     /** Censored period, ms (common practice). */
     censoredMs: 0,
+    /** Equal time bins over the span for the presence ratio (common practice: 100). */
+    presenceBins: 100,
+    /** Consecutive equal segments of the span for rate drift (our choice, no published source). */
+    driftSegments: 10,
+    /** Autocorrelogram bin and half-window, ms (common practice for figures). */
+    acgBinMs: 1,
+    acgWindowMs: 50,
+    /** Screening thresholds of the `quality` verdict (common practice unless noted). */
+    /** Fewest spikes for a unit to be judged at all (our choice). */
+    minSpikes: 100,
+    /** Largest Hill et al. (2011) contamination estimate (common practice: 0.1). */
+    maxContamination: 0.1,
+    /** Smallest presence ratio (common practice: 0.9). */
+    minPresenceRatio: 0.9,
+    /** Largest coefficient of variation of segment rates (our choice; Poisson noise alone gives ~sqrt(segments / spikes)). */
+    maxRateDriftCv: 0.5,
   },
 };
 

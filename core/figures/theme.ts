@@ -28,6 +28,8 @@ export const VERDICT_STYLE: Readonly<Record<string, { color: string; symbol: str
   excited: { color: OKABE_ITO.vermillion, symbol: 'triangle-up' },
   suppressed: { color: OKABE_ITO.blue, symbol: 'triangle-down' },
   none: { color: '#7f7f7f', symbol: 'line-ew' },
+  pass: { color: OKABE_ITO.bluishGreen, symbol: 'circle' },
+  review: { color: OKABE_ITO.reddishPurple, symbol: 'x' },
 };
 
 /** Colours for conditions / groups, in order (Okabe & Ito without black and yellow). */

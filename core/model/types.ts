@@ -19,6 +19,13 @@ export interface Unit {
   readonly meta: Readonly<Record<string, Scalar>>;
   /** Mean spike waveform from the inputs, microvolts by convention, if given. */
   readonly waveformMean?: Float64Array;
+  /**
+   * Times the unit was observed, if the inputs say (NWB `obs_intervals`):
+   * flat pairs [start0, stop0, start1, stop1, ...] in s, sorted, not
+   * overlapping. Absent = observed over the whole recording span. For presence
+   * ratio and for limiting baselines to observed time.
+   */
+  readonly observedIntervals?: Float64Array;
 }
 
 /** Laser pulses as columns of typed arrays, sorted by onset. */
@@ -75,6 +82,13 @@ export interface Recording {
   readonly waveformSampleRateHz: number;
   /** Raw extracellular voltage, when the session names a raw binary file. */
   readonly raw?: RawSource;
+  /**
+   * Descriptive session metadata from the inputs, if any (for run.json and
+   * reports): e.g. from an NWB file nwb_version, identifier,
+   * session_description, session_start_time, and the light source's
+   * stimulus_site_description / _location / excitation_lambda_nm.
+   */
+  readonly meta?: Readonly<Record<string, Scalar>>;
 }
 
 /**

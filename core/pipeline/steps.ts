@@ -1,5 +1,10 @@
 import type { AnalysisStep } from './types';
 import { basicStep } from './basic-step';
+import { lightStep } from '../light/light-step';
+import { rampStep } from '../classify/ramp-step';
+import { jumpStep } from '../classify/jump-step';
+import { clusterStep } from '../classify/cluster-step';
+import { qualityStep } from '../quality/quality-step';
 
 /**
  * The analyses of `run`, in order. To add an analysis: write a step
@@ -8,4 +13,9 @@ import { basicStep } from './basic-step';
  */
 export const STEPS: readonly AnalysisStep[] = [
   basicStep,
+  lightStep,
+  rampStep,
+  jumpStep,
+  clusterStep,
+  qualityStep,
 ];

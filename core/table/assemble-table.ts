@@ -29,7 +29,9 @@ export function assembleTable(columns: readonly Column[], rowCount: number): Uni
   const kinds = new Set<string>();
   for (const c of columns) {
     const m = JUMP_COLUMN.exec(c.name);
-    if (m && byName.has(`jump_${m[1]}`) && byName.get(`jump_${m[1]}`)!.kind === 'string') kinds.add(m[1]);
+    // A kind needs its verdict (string) and its p column, so extra string columns such
+    // as jump_K_reason are not mistaken for kinds.
+    if (m && byName.get(`jump_${m[1]}`)?.kind === 'string' && byName.has(`jump_${m[1]}_p`)) kinds.add(m[1]);
   }
   for (const k of [...kinds].sort()) {
     take(`jump_${k}`);

@@ -1,0 +1,24 @@
+/** Alignment: rasters, PSTHs, grouping, population matrices, time-warping. */
+export type { AlignmentSet, Raster, TrialGroup, GroupBy, OrderBy, Smoothing, PsthOptions, Psth } from './types';
+export { lowerBound } from './lower-bound';
+export { countInWindow } from './count-in-window';
+export { binCounts } from './bin-counts';
+export { linkEventsToTrials } from './link-events-to-trials';
+export { selectAlignment, type AlignmentSpec } from './select-alignment';
+export { extractRaster } from './extract-raster';
+export { covariateColumn } from './covariate-column';
+export { orderTrials } from './order-trials';
+export { groupTrials } from './group-trials';
+export { smoothingKernel } from './smoothing-kernel';
+export { smoothRows } from './smooth-rows';
+export { baselineZScore } from './baseline-z-score';
+export { computePsth } from './compute-psth';
+export { psthByGroup } from './psth-by-group';
+export { populationMatrix, type PopulationMatrixOptions } from './population-matrix';
+export { trialAnchors, type TrialAnchors } from './trial-anchors';
+export { warpTemplate } from './warp-template';
+export { warpTime } from './warp-time';
+export { unwarpTime } from './unwarp-time';
+export { warpSpikes } from './warp-spikes';
+export { warpedPsth, type WarpedPsth } from './warped-psth';
+export { eventResponse, type EventResponse, type EventResponseRequest, type ResponseGroup } from './event-response';

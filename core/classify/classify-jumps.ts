@@ -1,0 +1,184 @@
+import { binCounts } from '../align/bin-counts';
+import { countInWindow } from '../align/count-in-window';
+import type { Parameters } from '../defaults';
+import type { Recording } from '../model/types';
+import { benjaminiHochberg } from '../stats/benjamini-hochberg';
+import { formatP } from './format-p';
+import { jumpUnit, type JumpUnitResult } from './jump-unit';
+import { referenceProfile, type ReferenceProfile } from './reference-profile';
+import { selectEvents } from './select-events';
+
+/** Results for one jump kind across units. */
+export interface JumpKindResult {
+  /** The kind as given in events.csv ("" when the column is absent). */
+  readonly kind: string;
+  readonly nEvents: number;
+  /** Events that got a matched control (a trial and reference trials covering their windows). */
+  readonly nControlled: number;
+  readonly units: JumpUnitResult[];
+  readonly q: Float64Array;
+  /** excited | suppressed | none. */
+  readonly verdict: string[];
+  /** transient | partial | step | unclear ("" when verdict is none). */
+  readonly shape: string[];
+  readonly reason: string[];
+  /** True when the events carry a numeric size. */
+  readonly hasSize: boolean;
+}
+
+export interface JumpClassification {
+  readonly kinds: JumpKindResult[];
+  /** Reference trials used as matched control. */
+  readonly nReferenceTrials: number;
+  readonly note: string;
+  /** PSTH bin start (s) and width for the figures. */
+  readonly psthStartS: number;
+  readonly psthBinS: number;
+}
+
+/**
+ * Jump answers of every unit, per kind (issue 5):
+ * - rates in [preStartS, preEndS), [postStartS, postEndS) and [lateStartS,
+ *   lateEndS) around each `event`, grouped by the event's kind;
+ * - matched control: reference trials = trials of controlCondition holding no
+ *   jump event; for each jump, the change the reference trials show over the
+ *   same windows at the same time-in-trial (jump time - its trial's start) is
+ *   subtracted from the jump's change (1 ms grid). Jumps outside any trial, or
+ *   when there are no reference trials, are not controlled (their change is
+ *   used as is; the count is in the summary);
+ * - two-sided signed-rank across events, BH across units per kind; verdict
+ *   excited / suppressed when q < alpha, else none;
+ * - shape of an answer: "step" when the late change is significant in the
+ *   same direction and not significantly smaller than the answer; "partial"
+ *   when it is significant but smaller; "transient" when the answer decays
+ *   significantly and the late change is not significant in the same
+ *   direction; "unclear" otherwise (within-unit tests at alpha, uncorrected);
+ * - latency, peak (Hz and z) from the control-subtracted event-averaged PSTH;
+ * - Spearman of the controlled answer against a numeric jump size read from
+ *   the trial covariate sizeCovariate (of each jump's trial), when present.
+ */
+export function classifyJumps(recording: Recording, params: Parameters['jump']): JumpClassification {
+  const all = selectEvents(recording, params.event, null);
+  const { trials } = recording;
+  const binS = params.psthBinS;
+  const psthStartS = Math.min(params.preStartS, params.postStartS);
+  const psthEndS = Math.max(params.postEndS, params.lateEndS);
+  const nPsth = Math.max(1, Math.round((psthEndS - psthStartS) / binS));
+  if (all.times.length === 0) {
+    return { kinds: [], nReferenceTrials: 0, note: all.note, psthStartS, psthBinS: binS };
+  }
+  // Reference trials: the control condition, without any jump event.
+  const jumpTrials = new Set<number>();
+  for (let i = 0; i < all.trialRows.length; i++) if (all.trialRows[i] >= 0) jumpTrials.add(all.trialRows[i]);
+  const refStarts: number[] = [];
+  const refStops: number[] = [];
+  if (params.controlCondition !== '') {
+    for (let r = 0; r < trials.trial.length; r++) {
+      if (trials.condition[r] !== params.controlCondition || jumpTrials.has(r)) continue;
+      const stop = Number.isFinite(trials.stop[r]) ? trials.stop[r] : r + 1 < trials.start.length ? trials.start[r + 1] : NaN;
+      if (!(stop > trials.start[r])) continue;
+      refStarts.push(trials.start[r]);
+      refStops.push(stop);
+    }
+  }
+  // Time-in-trial of each jump.
+  const tau = Float64Array.from(all.times, (t, i) => (all.trialRows[i] >= 0 ? t - trials.start[all.trialRows[i]] : NaN));
+  let maxTau = 0;
+  for (const v of tau) if (v > maxTau) maxTau = v;
+  const profileLength = maxTau + Math.max(params.postEndS, params.lateEndS, params.preEndS) + 0.01;
+  const sizeCol = params.sizeCovariate !== '' ? trials.covariates[params.sizeCovariate] : undefined;
+  const sizeAll = Float64Array.from(all.trialRows, (r) => (sizeCol instanceof Float64Array && r >= 0 ? sizeCol[r] : NaN));
+
+  const kindNames = [...new Set(all.kinds)].sort();
+  const groups = kindNames.map((k) => all.kinds.flatMap((kk, i) => (kk === k ? [i] : [])));
+  const nUnits = recording.units.length;
+  const perKindUnits: JumpUnitResult[][] = kindNames.map(() => []);
+  const controlledCount = new Array<number>(kindNames.length).fill(0);
+  const preLen = params.preEndS - params.preStartS;
+  const postLen = params.postEndS - params.postStartS;
+  const lateLen = params.lateEndS - params.lateStartS;
+
+  for (let u = 0; u < nUnits; u++) {
+    const st = recording.units[u].spikeTimes;
+    const profile: ReferenceProfile | null = refStarts.length > 0 ? referenceProfile(st, refStarts, refStops, profileLength) : null;
+    groups.forEach((idx, g) => {
+      const n = idx.length;
+      const pre = new Float64Array(n);
+      const post = new Float64Array(n);
+      const late = new Float64Array(n);
+      const cPost = new Float64Array(n);
+      const cLate = new Float64Array(n);
+      const size = new Float64Array(n);
+      const times = new Float64Array(n);
+      const psth = new Float64Array(nPsth);
+      let controlled = 0;
+      for (let e = 0; e < n; e++) {
+        const i = idx[e];
+        const t = all.times[i];
+        times[e] = t;
+        size[e] = sizeAll[i];
+        pre[e] = countInWindow(st, t + params.preStartS, t + params.preEndS) / preLen;
+        post[e] = countInWindow(st, t + params.postStartS, t + params.postEndS) / postLen;
+        late[e] = countInWindow(st, t + params.lateStartS, t + params.lateEndS) / lateLen;
+        const ta = tau[i];
+        if (profile && ta === ta) {
+          const rPre = profile.meanRate(ta + params.preStartS, ta + params.preEndS);
+          const rPost = profile.meanRate(ta + params.postStartS, ta + params.postEndS);
+          const rLate = profile.meanRate(ta + params.lateStartS, ta + params.lateEndS);
+          if (rPre === rPre && rPost === rPost && rLate === rLate) {
+            cPost[e] = rPost - rPre;
+            cLate[e] = rLate - rPre;
+            controlled++;
+            profile.addBins(ta + psthStartS, binS, nPsth, -1 / n, psth);
+          }
+        }
+      }
+      const counts = binCounts(st, times, psthStartS, binS, nPsth);
+      for (let e = 0; e < n; e++) for (let j = 0; j < nPsth; j++) psth[j] += counts[e * nPsth + j] / (binS * n);
+      if (u === 0) controlledCount[g] = controlled;
+      perKindUnits[g].push(
+        jumpUnit(
+          { pre, post, late, controlPost: cPost, controlLate: cLate, psth, psthStartS, binS, size },
+          params,
+          { minEvents: params.minEvents, exactMaxN: params.exactMaxN, zThreshold: params.zThreshold, runBins: params.latencyRunBins },
+        ),
+      );
+    });
+  }
+
+  const kinds: JumpKindResult[] = kindNames.map((kind, g) => {
+    const units = perKindUnits[g];
+    const q = benjaminiHochberg(Float64Array.from(units, (r) => r.p));
+    const verdict: string[] = [];
+    const shape: string[] = [];
+    const reason: string[] = [];
+    const a = params.alpha;
+    units.forEach((r, u) => {
+      if (!(r.p === r.p)) {
+        verdict.push('none');
+        shape.push('');
+        reason.push(r.nEvents < params.minEvents ? `only ${r.nEvents} events (fewer than ${params.minEvents})` : 'no spikes around the events');
+        return;
+      }
+      const stats = `signed-rank on ${r.nEvents} events p ${formatP(r.p)}, q ${formatP(q[u])}`;
+      if (q[u] < a && r.direction !== 0) {
+        const up = r.direction > 0;
+        verdict.push(up ? 'excited' : 'suppressed');
+        const lateSame = r.lateP < a && r.lateDirection === r.direction;
+        const decays = r.decayP < a && r.decayDirection === r.direction;
+        const sh = lateSame ? (decays ? 'partial' : 'step') : decays ? 'transient' : 'unclear';
+        shape.push(sh);
+        reason.push(
+          `${up ? '+' : ''}${r.deltaHz.toPrecision(3)} Hz after the jump: ${stats} < ${a}; ${sh} (late change ${r.lateDeltaHz.toPrecision(3)} Hz, p ${formatP(r.lateP)}; decay p ${formatP(r.decayP)})`,
+        );
+      } else {
+        verdict.push('none');
+        shape.push('');
+        reason.push(`${stats} >= ${a}`);
+      }
+    });
+    const hasSize = groups[g].some((i) => sizeAll[i] === sizeAll[i]);
+    return { kind, nEvents: groups[g].length, nControlled: controlledCount[g], units, q, verdict, shape, reason, hasSize };
+  });
+  return { kinds, nReferenceTrials: refStarts.length, note: all.note, psthStartS, psthBinS: binS };
+}

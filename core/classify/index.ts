@@ -1,0 +1,13 @@
+export { classifyRamps, type RampClassification, type ConditionRamps } from './classify-ramps';
+export { rampUnit, type RampUnitResult } from './ramp-unit';
+export { classifyJumps, type JumpClassification, type JumpKindResult } from './classify-jumps';
+export { jumpUnit, type JumpUnitResult, type JumpUnitInput } from './jump-unit';
+export { clusterUnits, type UnitClusters, type ClusterClass } from './cluster-units';
+export { responseFeatures, type ResponseFeatures, type FeatureSegment } from './response-features';
+export { selectEvents, type EventSelection } from './select-events';
+export { eventTrialRows } from './event-trial-rows';
+export { referenceProfile, type ReferenceProfile } from './reference-profile';
+export { columnSafe } from './column-safe';
+export { rampStep } from './ramp-step';
+export { jumpStep } from './jump-step';
+export { clusterStep } from './cluster-step';

@@ -1,0 +1,148 @@
+import { spearman } from '../stats/spearman';
+import { wilcoxonSignedRank } from '../stats/wilcoxon-signed-rank';
+
+/** Inputs of one unit for one jump kind; per-event arrays have one entry per event. */
+export interface JumpUnitInput {
+  /** Rates in the pre, answer (post) and late windows, Hz. */
+  readonly pre: Float64Array;
+  readonly post: Float64Array;
+  readonly late: Float64Array;
+  /** Matched-control change post - pre and late - pre at each event's time-in-trial, Hz (0 when no control). */
+  readonly controlPost: Float64Array;
+  readonly controlLate: Float64Array;
+  /** Event-averaged, control-subtracted PSTH (Hz) on bins of binS starting at psthStartS. */
+  readonly psth: Float64Array;
+  readonly psthStartS: number;
+  readonly binS: number;
+  /** Numeric jump size per event (NaN when unknown). */
+  readonly size: Float64Array;
+}
+
+export interface JumpUnitResult {
+  readonly nEvents: number;
+  /** Mean controlled change in the answer window, Hz (post - pre minus the control's). */
+  readonly deltaHz: number;
+  /** Mean controlled change in the late window, Hz. */
+  readonly lateDeltaHz: number;
+  /** Two-sided signed-rank p of the per-event controlled answers (NaN with too few events). */
+  readonly p: number;
+  readonly direction: number;
+  /** Signed-rank p of the late change, and of answer minus late change (decay). */
+  readonly lateP: number;
+  readonly decayP: number;
+  readonly decayDirection: number;
+  readonly lateDirection: number;
+  /** (early - late) / (|early| + |late|), signed so 1 = returns to baseline, 0 = lasting step, < 0 = grows. */
+  readonly transience: number;
+  /** PSTH peak in the answer window, in the direction of the mean change (maximum when it is positive, minimum when negative). */
+  readonly peakDeltaHz: number;
+  readonly peakZ: number;
+  readonly peakS: number;
+  /** First time the PSTH stays beyond +-zThreshold for runBins bins in the answer's direction, s (NaN if never). */
+  readonly latencyS: number;
+  /** Spearman of the controlled answer against jump size. */
+  readonly sizeRho: number;
+  readonly sizeP: number;
+  /** The control-subtracted event-averaged PSTH (Hz) it was computed from, bins of binS from psthStartS. */
+  readonly psth: Float64Array;
+}
+
+/**
+ * Statistics of one unit's answer to one kind of jump (issue 5). The matched
+ * control enters by subtraction: each event's change (post - pre) minus the
+ * change the reference trials show over the same windows at the same
+ * time-in-trial, so a change that an ongoing ramp would produce anyway is not
+ * counted as an answer. The signed-rank test then asks whether the
+ * controlled changes are symmetric about 0.
+ */
+export function jumpUnit(
+  x: JumpUnitInput,
+  window: { postStartS: number; postEndS: number; preStartS: number; preEndS: number },
+  opts: { minEvents: number; exactMaxN: number; zThreshold: number; runBins: number; direction?: number },
+): JumpUnitResult {
+  const n = x.pre.length;
+  const early = new Float64Array(n);
+  const late = new Float64Array(n);
+  const decay = new Float64Array(n);
+  let se = 0;
+  let sl = 0;
+  for (let e = 0; e < n; e++) {
+    early[e] = x.post[e] - x.pre[e] - x.controlPost[e];
+    late[e] = x.late[e] - x.pre[e] - x.controlLate[e];
+    decay[e] = early[e] - late[e];
+    se += early[e];
+    sl += late[e];
+  }
+  const deltaHz = n > 0 ? se / n : NaN;
+  const lateDeltaHz = n > 0 ? sl / n : NaN;
+  const enough = n >= opts.minEvents;
+  const t = enough ? wilcoxonSignedRank(early, opts.exactMaxN) : null;
+  const tl = enough ? wilcoxonSignedRank(late, opts.exactMaxN) : null;
+  const td = enough ? wilcoxonSignedRank(decay, opts.exactMaxN) : null;
+  const s = Math.sign(deltaHz);
+  const denom = Math.abs(deltaHz) + Math.abs(lateDeltaHz);
+  const transience = denom > 0 ? (s * (deltaHz - lateDeltaHz)) / denom : NaN;
+
+  // PSTH: baseline from the pre window's bins, peak and latency in the answer window.
+  const nb = x.psth.length;
+  const binOf = (tS: number) => Math.round((tS - x.psthStartS) / x.binS);
+  const b0 = Math.max(0, binOf(window.preStartS));
+  const b1 = Math.min(nb, binOf(window.preEndS));
+  const a0 = Math.max(0, binOf(window.postStartS));
+  const a1 = Math.min(nb, binOf(window.postEndS));
+  let m = 0;
+  for (let j = b0; j < b1; j++) m += x.psth[j];
+  const nbBase = b1 - b0;
+  m = nbBase > 0 ? m / nbBase : NaN;
+  let v = 0;
+  for (let j = b0; j < b1; j++) v += (x.psth[j] - m) ** 2;
+  const sd = nbBase > 1 ? Math.sqrt(v / (nbBase - 1)) : NaN;
+  const dir = opts.direction ?? Math.sign(deltaHz);
+  let best = -1;
+  let bestScore = -Infinity;
+  for (let j = a0; j < a1; j++) {
+    const d = x.psth[j] - m;
+    const score = dir > 0 ? d : dir < 0 ? -d : Math.abs(d);
+    if (score > bestScore) {
+      bestScore = score;
+      best = j;
+    }
+  }
+  const peakDeltaHz = best >= 0 ? x.psth[best] - m : NaN;
+  const peakZ = best >= 0 && sd > 0 ? peakDeltaHz / sd : NaN;
+  const peakS = best >= 0 ? x.psthStartS + (best + 0.5) * x.binS : NaN;
+  let latencyS = NaN;
+  if (dir !== 0 && sd > 0) {
+    let run = 0;
+    for (let j = a0; j < a1; j++) {
+      const z = (x.psth[j] - m) / sd;
+      if (dir * z > opts.zThreshold) {
+        run++;
+        if (run >= opts.runBins) {
+          latencyS = x.psthStartS + (j - run + 1) * x.binS;
+          break;
+        }
+      } else run = 0;
+    }
+  }
+  const sz = spearman(x.size, early);
+  return {
+    nEvents: n,
+    deltaHz,
+    lateDeltaHz,
+    p: t ? t.p : NaN,
+    direction: t ? t.direction : 0,
+    lateP: tl ? tl.p : NaN,
+    lateDirection: tl ? tl.direction : 0,
+    decayP: td ? td.p : NaN,
+    decayDirection: td ? td.direction : 0,
+    transience,
+    peakDeltaHz,
+    peakZ,
+    peakS,
+    latencyS,
+    sizeRho: sz.rho,
+    sizeP: sz.p,
+    psth: x.psth,
+  };
+}

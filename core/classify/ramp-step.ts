@@ -1,0 +1,79 @@
+import type { AnalysisStep } from '../pipeline/types';
+import type { Column } from '../table/types';
+import { classifyRamps } from './classify-ramps';
+import { columnSafe } from './column-safe';
+
+/**
+ * Pipeline step "ramp": the contract columns ramp, ramp_slope_hz_per_s,
+ * ramp_p, ramp_q, then ramp_reason and the effect sizes, then per-condition
+ * slopes (ramp_slope_<condition>_hz_per_s) and, for conditions other than the
+ * reference, ramp_diff_<condition>_p. Without reward events every unit is
+ * `flat` with the reason and empty numbers.
+ */
+export const rampStep: AnalysisStep = {
+  name: 'ramp',
+  run({ recording, parameters }) {
+    const rp = parameters.ramp;
+    const r = classifyRamps(recording, rp);
+    const num = (name: string, description: string, pick: (i: number) => number, digits = 6): Column => ({
+      name,
+      kind: 'number',
+      values: Float64Array.from(r.units, (_, i) => pick(i)),
+      digits,
+      description,
+    });
+    const columns: Column[] = [
+      { name: 'ramp', kind: 'string', values: r.verdict, description: `Ramp before "${rp.event}": up, down or flat (BH q < ${rp.alpha})` },
+      num('ramp_slope_hz_per_s', 'Least-squares slope of the trial-averaged rate over the ramp window, Hz/s', (i) => r.units[i].slopeHzPerS),
+      num('ramp_p', 'Two-sided Wilcoxon signed-rank p of the per-trial slopes', (i) => r.units[i].p),
+      num('ramp_q', 'Benjamini-Hochberg adjustment of ramp_p across all units', (i) => r.q[i]),
+      { name: 'ramp_reason', kind: 'string', values: r.reason, description: 'Why the ramp verdict was given' },
+      num('ramp_n_trials', 'Trials in the ramp test', (i) => r.units[i].nTrials),
+      num('ramp_mean_rate_hz', 'Mean rate over the ramp window, Hz', (i) => r.units[i].meanRateHz),
+      num('ramp_slope_rel_per_s', 'Ramp slope relative to the mean rate in the window, 1/s', (i) => r.units[i].slopeRelPerS),
+      num('ramp_r2', 'R^2 of the straight line fitted to the trial-averaged rate', (i) => r.units[i].r2),
+      num('ramp_late_early_ratio', 'Mean rate in the last third of the window over the first third', (i) => r.units[i].lateEarlyRatio),
+      num('ramp_glm_slope_per_s', 'Poisson GLM slope of log rate, 1/s', (i) => r.units[i].glmSlopePerS),
+      num('ramp_glm_lrt_p', 'Poisson GLM likelihood-ratio p (assumes Poisson counts)', (i) => r.units[i].glmLrtP),
+      num('ramp_glm_dispersion', 'Pearson chi-square / df of the Poisson GLM (> 1: overdispersed)', (i) => r.units[i].glmDispersion),
+    ];
+    for (const c of r.conditions) {
+      const safe = columnSafe(c.condition);
+      columns.push({
+        name: `ramp_slope_${safe}_hz_per_s`,
+        kind: 'number',
+        values: c.slopeHzPerS,
+        description: `Ramp slope in trials of condition "${c.condition}", Hz/s`,
+      });
+      if (c.condition !== rp.condition && rp.condition !== '' && r.conditions.some((x) => x.condition === rp.condition)) {
+        columns.push({
+          name: `ramp_diff_${safe}_p`,
+          kind: 'number',
+          values: c.diffP,
+          description: `Rank-sum p of per-trial slopes, condition "${c.condition}" vs "${rp.condition}" (uncorrected)`,
+        });
+      }
+    }
+    const count = (v: string) => r.verdict.filter((x) => x === v).length;
+    return {
+      columns,
+      summary: {
+        event: rp.event,
+        condition: rp.condition,
+        trials: r.nTrials,
+        selection: r.note,
+        windowS: [rp.windowStartS, rp.windowEndS],
+        binS: rp.binS,
+        alpha: rp.alpha,
+        up: count('up'),
+        down: count('down'),
+        flat: count('flat'),
+        conditions: r.conditions.map((c) => ({ condition: c.condition, trials: c.nTrials })),
+      },
+      warnings:
+        r.nTrials === 0 && recording.units.length > 0
+          ? [{ code: 'ramp-no-trials', message: `Ramp classification skipped: ${r.note}; every unit is reported flat.`, count: 1 }]
+          : [],
+    };
+  },
+};

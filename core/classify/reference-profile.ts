@@ -1,0 +1,76 @@
+import { lowerBound } from '../align/lower-bound';
+
+/**
+ * Mean firing rate of one unit as a function of time-in-trial over a set of
+ * reference trials, as a cumulative integral on a fine grid, so the mean
+ * rate over any window [t0 + a, t0 + b) of time-in-trial is one subtraction.
+ *
+ * Grid step resolutionS (1 ms by default): window edges are rounded to it.
+ * Each grid bin's rate averages only the trials still running then
+ * (time-in-trial < stop - start); where no trial covers a bin the integral
+ * becomes NaN from there on, and windows reaching it give NaN.
+ */
+export interface ReferenceProfile {
+  /** Mean rate (Hz) over time-in-trial [a, b), NaN when not covered. */
+  meanRate(a: number, b: number): number;
+  /**
+   * Mean rate (Hz) in nBins consecutive bins of binS from time-in-trial a,
+   * added times `scale` into out[0..nBins) (NaN bins are skipped; returns false
+   * if any bin was not covered).
+   */
+  addBins(a: number, binS: number, nBins: number, scale: number, out: Float64Array): boolean;
+}
+
+export function referenceProfile(
+  spikeTimes: ArrayLike<number>,
+  starts: ArrayLike<number>,
+  stops: ArrayLike<number>,
+  lengthS: number,
+  resolutionS = 0.001,
+): ReferenceProfile {
+  const nGrid = Math.max(1, Math.ceil(lengthS / resolutionS));
+  const count = new Float64Array(nGrid);
+  const cover = new Float64Array(nGrid + 1);
+  for (let r = 0; r < starts.length; r++) {
+    const s = starts[r];
+    const len = Math.min(lengthS, stops[r] - s);
+    if (!(len > 0)) continue;
+    const covered = Math.min(nGrid, Math.floor(len / resolutionS));
+    cover[0] += 1;
+    cover[covered] -= 1;
+    const end = s + covered * resolutionS;
+    for (let i = lowerBound(spikeTimes, s); i < spikeTimes.length && spikeTimes[i] < end; i++) {
+      const j = Math.floor((spikeTimes[i] - s) / resolutionS);
+      if (j < covered) count[j]++;
+    }
+  }
+  // Cumulative integral of the mean rate (spikes per trial), NaN once coverage ends.
+  const integral = new Float64Array(nGrid + 1);
+  let c = 0;
+  for (let j = 0; j < nGrid; j++) {
+    c += cover[j];
+    const add = c > 0 ? count[j] / c : NaN;
+    integral[j + 1] = integral[j] + add;
+  }
+  return {
+    meanRate(a: number, b: number): number {
+      const ia = Math.round(a / resolutionS);
+      const ib = Math.round(b / resolutionS);
+      if (ia < 0 || ib > nGrid || !(ib > ia)) return NaN;
+      return (integral[ib] - integral[ia]) / ((ib - ia) * resolutionS);
+    },
+    addBins(a: number, binS: number, nBins: number, scale: number, out: Float64Array): boolean {
+      const ia = Math.round(a / resolutionS);
+      const step = Math.round(binS / resolutionS);
+      if (ia < 0 || ia + step * nBins > nGrid || !(step > 0)) return false;
+      const f = scale / (step * resolutionS);
+      let ok = true;
+      for (let j = 0; j < nBins; j++) {
+        const v = integral[ia + step * (j + 1)] - integral[ia + step * j];
+        if (v === v) out[j] += f * v;
+        else ok = false;
+      }
+      return ok;
+    },
+  };
+}

@@ -1,0 +1,28 @@
+import { autocorrelogramFigure } from './quality/autocorrelogram-figure';
+import { isiHistogramFigure } from './quality/isi-histogram-figure';
+import { rateHeatmapFigure } from './quality/rate-heatmap-figure';
+import { rateOverSessionFigure } from './quality/rate-over-session-figure';
+import { verdictCountsFigure } from './quality/verdict-counts-figure';
+import { waveformFigure } from './quality/waveform-figure';
+import type { PopulationFigure, UnitFigure } from './types';
+
+/**
+ * Every figure the app, the exports and the HTML report can draw, in display
+ * order. To add one: write a UnitFigure or PopulationFigure (pure build(),
+ * plain Plotly JSON, null when it does not apply) in core/figures/<area>/ and
+ * add a line to the list of your area here. Ids must be unique
+ * (test/core/figures/registry.test.ts checks).
+ */
+export const UNIT_FIGURES: readonly UnitFigure[] = [
+  // quality
+  rateOverSessionFigure,
+  autocorrelogramFigure,
+  isiHistogramFigure,
+  waveformFigure,
+];
+
+export const POPULATION_FIGURES: readonly PopulationFigure[] = [
+  // quality and curation
+  verdictCountsFigure,
+  rateHeatmapFigure,
+];

@@ -1,0 +1,70 @@
+import type { Parameters } from '../defaults';
+import { cv2 } from './cv2';
+import { hillContamination } from './hill-contamination';
+import { isiViolations } from './isi-violations';
+import { localVariation } from './local-variation';
+import { presenceRatio } from './presence-ratio';
+import { rateDrift } from './rate-drift';
+import { waveformShape } from './waveform-shape';
+
+/** Every quality metric of one unit (NaN where a metric does not apply). */
+export interface UnitQuality {
+  readonly nSpikes: number;
+  /** Spikes in the span / span length, Hz. */
+  readonly rateHz: number;
+  readonly isiViolationCount: number;
+  readonly isiViolationFraction: number;
+  /** Hill et al. (2011) contamination; NaN when undefined (see atLeastHalf). */
+  readonly contamination: number;
+  readonly contaminationAtLeastHalf: boolean;
+  readonly presenceRatio: number;
+  readonly lv: number;
+  readonly cv2: number;
+  readonly rateDriftCv: number;
+  readonly rateSlopeHzPerMin: number;
+  readonly troughToPeakMs: number;
+  readonly halfWidthMs: number;
+}
+
+/**
+ * Computes all quality metrics of one unit over the recording span with the
+ * `quality` parameters (refractory/censored periods in ms, presence bins,
+ * drift segments). Spikes outside the span are ignored for every metric.
+ * Waveform metrics need `waveform` and a finite `waveformSampleRateHz`.
+ */
+export function unitQuality(
+  spikeTimes: Float64Array,
+  span: readonly [number, number],
+  q: Parameters['quality'],
+  waveform?: Float64Array,
+  waveformSampleRateHz = NaN,
+): UnitQuality {
+  const [t0, t1] = span;
+  let a = 0;
+  while (a < spikeTimes.length && spikeTimes[a] < t0) a++;
+  let b = spikeTimes.length;
+  while (b > a && spikeTimes[b - 1] > t1) b--;
+  const s = a === 0 && b === spikeTimes.length ? spikeTimes : spikeTimes.subarray(a, b);
+  const len = t1 - t0;
+  const n = s.length;
+  const refractoryS = q.refractoryMs / 1000;
+  const viol = isiViolations(s, refractoryS);
+  const cont = hillContamination(viol.count, n, len, refractoryS, q.censoredMs / 1000);
+  const drift = rateDrift(s, t0, t1, q.driftSegments);
+  const shape = waveform ? waveformShape(waveform, waveformSampleRateHz) : { troughToPeakMs: NaN, halfWidthMs: NaN };
+  return {
+    nSpikes: n,
+    rateHz: len > 0 ? n / len : NaN,
+    isiViolationCount: viol.count,
+    isiViolationFraction: viol.fraction,
+    contamination: cont.value,
+    contaminationAtLeastHalf: cont.atLeastHalf,
+    presenceRatio: presenceRatio(s, t0, t1, q.presenceBins),
+    lv: localVariation(s),
+    cv2: cv2(s),
+    rateDriftCv: drift.cv,
+    rateSlopeHzPerMin: drift.slopeHzPerMin,
+    troughToPeakMs: shape.troughToPeakMs,
+    halfWidthMs: shape.halfWidthMs,
+  };
+}

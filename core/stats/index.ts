@@ -1,0 +1,10 @@
+export * from './distributions';
+export { midRanks } from './mid-ranks';
+export { wilcoxonSignedRank, type SignedRankResult } from './wilcoxon-signed-rank';
+export { mannWhitney, type RankSumResult } from './mann-whitney';
+export { benjaminiHochberg } from './benjamini-hochberg';
+export { linearFit, type LinearFit } from './linear-fit';
+export { poissonGlm, type PoissonGlmFit, type PoissonGlmOptions } from './poisson-glm';
+export { spearman, type SpearmanResult } from './spearman';
+export { silhouette } from './silhouette';
+export { kMeansRestarts, type KMeansFit } from './k-means-restarts';
