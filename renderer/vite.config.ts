@@ -17,8 +17,13 @@ const root = resolve(here, '..');
 /** Data files of a session folder that the demo bundle carries. */
 const DEMO_FILE = /\.(csv|npy|json|nwb|bin|dat)$/i;
 
-/** The demo session folder: the project's demo once it exists, else the end-to-end tests' tiny session. */
+/**
+ * The demo session folder bundled into the build: TAGBENCH_DEMO_DIR when set
+ * (the renderer benchmark bundles a 1,000-unit session this way), else the
+ * project's demo (sample-data/demo), else the end-to-end tests' tiny session.
+ */
 export function demoDir(): string {
+  if (process.env.TAGBENCH_DEMO_DIR) return resolve(process.env.TAGBENCH_DEMO_DIR);
   const demo = join(root, 'sample-data', 'demo');
   return existsSync(join(demo, 'spikes.csv')) || existsSync(join(demo, 'spikes.npy'))
     ? demo

@@ -115,5 +115,5 @@ export interface TagbenchBridge {
   readonly platform: string;
 }
 
-/** File name of the saved workbench state inside a session folder. */
-export const SAVED_STATE_FILE = 'tagbench-workbench.json';
+/** File name of the session file (curation and parameters) saved inside a session folder, or beside an NWB file. */
+export const SAVED_STATE_FILE = 'tagbench-session.json';

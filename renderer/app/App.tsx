@@ -1,14 +1,20 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { DEFAULTS, type Parameters } from '../../core/defaults';
-import { DEFAULT_EVENT_RESPONSE, type EventResponseOptions } from '../../core/figures/event-response-figure';
+import { compareInputs } from '../../core/curation/compare-inputs';
+import { describeInputMismatch } from '../../core/curation/describe-input-mismatch';
+import { historyDispatch, historyRedo, historyUndo, newHistory, type CurationHistory } from '../../core/curation/history';
+import { checkCurationAction } from '../../core/curation/check-curation-action';
+import { serializeSessionFile } from '../../core/curation/serialize-session-file';
+import { SESSION_FORMAT, SESSION_SCHEMA_VERSION } from '../../core/curation/session-file';
+import { EMPTY_CURATION } from '../../core/curation/types';
+import { validateSessionFile } from '../../core/curation/validate-session-file';
 import { isInputError } from '../../core/errors';
 import type { Host, OpenedSession } from '../host/host';
 import { loadDemoSession } from '../host/host';
 import { readLocal } from '../host/browser-host';
-import { curationOf, editCuration, EMPTY_CURATION, redoCuration, undoCuration, type CurationLabel, type CurationState, type UnitCuration } from '../state/curation';
-import { parseSavedState, serialiseState } from '../state/saved-state';
+import { changedUnit, describeAction, isIncluded, stamp, unitCurationOf, type UnstampedAction } from '../state/curation-edits';
 import { filterRows, parseFilter, sortRows, type SortDirection } from '../state/table-view';
-import type { AnalysisOutcome, OpenOutcome, Progress, UnitView } from '../worker/api';
+import type { AnalysisOutcome, EventView, OpenOutcome, Progress, UnitView } from '../worker/api';
 import { AnalysisClient, CancelledError } from '../worker/client';
 import { ExportScreen } from '../screens/ExportScreen';
 import { OverviewScreen } from '../screens/OverviewScreen';
@@ -43,6 +49,35 @@ export interface OpenSession {
   readonly unitIds: readonly string[];
 }
 
+/** Name stamped on curation decisions (set on the Analysis settings screen). */
+export const CURATOR_KEY = 'tagbench:curator';
+export function curatorName(): string {
+  return readLocal(CURATOR_KEY)?.trim() || 'unnamed curator';
+}
+
+/** File name of the session file (curation and settings) in exports and beside a desktop session. */
+export const SESSION_FILE_NAME = 'tagbench-session.json';
+
+export function eventViewOf(p: Parameters): EventView {
+  const { event, windowStartS, windowStopS, binMs, smoothing, smoothingWidthMs, groupBy } = p.align;
+  return { event, windowStartS, windowStopS, binMs, smoothing, smoothingWidthMs, groupBy };
+}
+
+/** The session file text of the current work (core/curation's format). */
+export function sessionFileText(session: OpenSession, history: CurationHistory, now: Date): string {
+  return serializeSessionFile({
+    format: SESSION_FORMAT,
+    schemaVersion: SESSION_SCHEMA_VERSION,
+    source: session.opened.displayPath,
+    inputs: session.info.inputs,
+    parameters: session.analysis.parameters,
+    units: session.unitIds,
+    curation: history.present,
+    savedAt: now.toISOString(),
+    savedWith: 'tagbench workbench',
+  });
+}
+
 export interface Busy extends Progress {
   readonly cancellable: boolean;
 }
@@ -66,15 +101,18 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
   const [busy, setBusy] = useState<Busy | null>(null);
   const [failure, setFailure] = useState<{ title: string; message: string } | null>(null);
   const [status, setStatus] = useState('');
-  const [curation, setCuration] = useState<CurationState>(EMPTY_CURATION);
+  const [history, setHistory] = useState<CurationHistory>(() => newHistory(EMPTY_CURATION));
+  const curation = history.present;
   const [selected, setSelected] = useState(0);
   const [tableView, setTableView] = useState<TableViewState>({ sortColumn: null, direction: 'ascending', filter: '' });
   const [help, setHelp] = useState(false);
-  const [eventOptions, setEventOptions] = useState<EventResponseOptions>(DEFAULT_EVENT_RESPONSE);
+  const [eventOptions, setEventOptions] = useState<EventView>(() => eventViewOf(DEFAULTS));
   const [unitView, setUnitView] = useState<UnitView | null>(null);
   const [settingsError, setSettingsError] = useState<string | null>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
   const dirty = useRef(false);
+  const saveBlocked = useRef(false);
+  const savedInputs = useRef<OpenOutcome['inputs'] | null>(null);
 
   // Table order (sort + filter) drives next/previous unit everywhere.
   const filterResult = useMemo(() => (session ? parseFilter(tableView.filter, session.analysis.table.columns) : { terms: [], error: null }), [session, tableView.filter]);
@@ -109,8 +147,21 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
       try {
         opened = await run('Opening the session', false, async () => get());
         if (!opened) return;
-        const saved = parseSavedState(opened.savedState);
-        let overrides: Overrides = saved.parameters;
+        // The saved session file (curation + parameters), checked by core; a damaged one is reported, never overwritten silently.
+        let savedHistory = newHistory(EMPTY_CURATION);
+        let overrides: Overrides = {};
+        const notes: string[] = [];
+        if (opened.savedState) {
+          try {
+            const file = validateSessionFile(opened.savedState, SESSION_FILE_NAME);
+            overrides = file.parameters as unknown as Overrides;
+            savedHistory = newHistory(file.curation);
+            savedInputs.current = file.inputs;
+          } catch (e) {
+            notes.push(`The saved ${SESSION_FILE_NAME} was not used and will not be overwritten until you save (Ctrl+S): ${message(e)}`);
+            saveBlocked.current = true;
+          }
+        }
         const o = opened;
         let info: OpenOutcome;
         try {
@@ -125,13 +176,19 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
         }
         const ids = info.table.columns.find((c) => c.name === 'unit')?.values as readonly string[];
         setSession({ opened: o, info, analysis: info, overrides, unitIds: ids });
-        setCuration(saved.curation);
+        setHistory(savedHistory);
+        if (savedInputs.current) {
+          const m = compareInputs(savedInputs.current, info.inputs);
+          if (!m.same) notes.push(describeInputMismatch(m, SESSION_FILE_NAME));
+          savedInputs.current = null;
+        }
         setSelected(0);
         setUnitView(null);
         setTableView({ sortColumn: null, direction: 'ascending', filter: '' });
-        setEventOptions({ ...DEFAULT_EVENT_RESPONSE, event: info.eventLabels.includes(DEFAULTS.ramp.event) ? DEFAULTS.ramp.event : (info.eventLabels[0] ?? '') });
+        const view = eventViewOf(info.parameters);
+        setEventOptions(info.eventLabels.includes(view.event) || info.eventLabels.length === 0 ? view : { ...view, event: info.eventLabels[0] });
         host.noteOpened(o);
-        if (saved.message) setStatus(saved.message);
+        if (notes.length) setStatus(notes.join(' '));
         else setStatus(`Opened ${o.name}: ${info.summary.units} units, analysed in ${Math.round(info.elapsedMs)} ms.`);
         setScreen('overview');
       } catch (e) {
@@ -163,6 +220,7 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
       try {
         const analysis = await run('Re-running the analysis', true, (p) => client.analyse(overrides, p));
         setSession({ ...session, analysis, overrides });
+        setEventOptions(eventViewOf(analysis.parameters));
         setUnitView(null);
         dirty.current = true;
         setStatus(`Analysis re-run in ${Math.round(analysis.elapsedMs)} ms with ${Object.keys(overrides).length ? 'changed' : 'default'} settings.`);
@@ -194,32 +252,40 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
     async (explicit: boolean) => {
       if (!session) return;
       try {
-        const where = await host.saveState(session.opened, serialiseState(session.opened.name, session.overrides, curation, new Date()));
+        if (saveBlocked.current && !explicit) return;
+        const where = await host.saveState(session.opened, sessionFileText(session, history, new Date()));
         dirty.current = false;
+        saveBlocked.current = false;
         if (explicit) setStatus(`Workbench state saved to ${where}.`);
       } catch (e) {
         setStatus(`Could not save the workbench state: ${message(e)}`);
       }
     },
-    [curation, host, session],
+    [history, host, session],
   );
   useEffect(() => {
     if (!session || !dirty.current) return;
     const t = setTimeout(() => void save(false), 400);
     return () => clearTimeout(t);
-  }, [curation, session, save]);
+  }, [history, session, save]);
 
   const unitId = session ? session.unitIds[selected] : '';
   const edit = useCallback(
-    (change: Partial<UnitCuration>) => {
+    (a: UnstampedAction) => {
       if (!session) return;
-      const next = editCuration(curation, unitId, change);
-      if (next === curation) return;
+      const action = stamp(a, curatorName(), new Date());
+      const problem = checkCurationAction(action, new Set(session.unitIds));
+      if (problem) {
+        setStatus(problem);
+        return;
+      }
+      const next = historyDispatch(history, action);
+      if (next === history) return;
       dirty.current = true;
-      setCuration(next);
-      setStatus(next.undo.at(-1)!.what);
+      setHistory(next);
+      setStatus(describeAction(a));
     },
-    [curation, session, unitId],
+    [history, session],
   );
 
   const step = useCallback(
@@ -264,16 +330,16 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
         case 'previous-unit':
           step(-1);
           return;
-        case 'label:identified':
-        case 'label:not identified':
-        case 'label:unsure':
-          edit({ label: c.slice(6) as CurationLabel });
+        case 'label:tagged':
+        case 'label:borderline':
+        case 'label:untagged':
+          edit({ type: 'label', unit: unitId, column: 'tag', value: c.slice(6) });
           return;
         case 'label:clear':
-          edit({ label: null });
+          edit({ type: 'label', unit: unitId, column: 'tag', value: null });
           return;
         case 'toggle-include':
-          edit({ included: !curationOf(curation, unitId).included });
+          edit({ type: 'include', unit: unitId, value: !isIncluded(curation, unitId) });
           return;
         case 'focus-note':
           setScreen('unit');
@@ -281,15 +347,16 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
           return;
         case 'undo':
         case 'redo': {
-          const r = (c === 'undo' ? undoCuration : redoCuration)(curation);
-          if (!r.edit) {
+          const next = (c === 'undo' ? historyUndo : historyRedo)(history);
+          if (next === history) {
             setStatus(`Nothing to ${c}.`);
             return;
           }
+          const unit = changedUnit(history.present, next.present);
           dirty.current = true;
-          setCuration(r.state);
-          setSelected(Math.max(0, session.unitIds.indexOf(r.edit.unitId)));
-          setStatus(`${c === 'undo' ? 'Undone' : 'Redone'}: ${r.edit.what}`);
+          setHistory(next);
+          if (unit !== null && session.unitIds.includes(unit)) setSelected(session.unitIds.indexOf(unit));
+          setStatus(`${c === 'undo' ? 'Undone' : 'Redone'}: change to unit ${unit ?? '?'}.`);
           return;
         }
         case 'save':
@@ -297,7 +364,7 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
           return;
       }
     },
-    [curation, edit, openDemo, openPicked, save, session, step, unitId],
+    [curation, edit, history, openDemo, openPicked, save, session, step, unitId],
   );
 
   useEffect(() => {
@@ -374,7 +441,7 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
             session={session}
             unitIndex={selected}
             view={unitView && unitView.unitIndex === selected ? unitView : null}
-            curation={curationOf(curation, unitId)}
+            curation={unitCurationOf(curation, unitId)}
             onEdit={edit}
             noteRef={noteRef}
             eventOptions={eventOptions}
@@ -385,9 +452,9 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
         ) : screen === 'population' ? (
           <PopulationScreen client={client} session={session} curation={curation} />
         ) : screen === 'settings' ? (
-          <SettingsScreen session={session} onRun={rerun} error={settingsError} busy={!!busy} />
+          <SettingsScreen session={session} onRun={rerun} error={settingsError} busy={!!busy} onStatus={setStatus} />
         ) : (
-          <ExportScreen client={client} host={host} session={session} curation={curation} unitIndex={selected} eventOptions={eventOptions} onStatus={setStatus} />
+          <ExportScreen client={client} host={host} session={session} history={history} unitIndex={selected} eventOptions={eventOptions} onStatus={setStatus} />
         )}
       </main>
       <footer className="statusbar">

@@ -21,7 +21,7 @@ export function HelpOverlay({ onClose }: { onClose: () => void }) {
             ))}
           </tbody>
         </table>
-        <p className="muted">Plain keys act when no text field has the focus. Labels, notes and include/exclude apply to the unit shown on the Unit page (or selected in the Unit table), are saved with the session and can be undone.</p>
+        <p className="muted">Plain keys act when no text field has the focus. Labels, notes and include/exclude apply to the unit shown on the Unit page (or selected in the Unit table). They sit beside the computed verdicts (never over them), carry your name and the time, are saved with the session and can be undone.</p>
         <button ref={ref} onClick={onClose}>Close (Esc)</button>
       </div>
     </div>

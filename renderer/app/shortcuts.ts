@@ -8,9 +8,9 @@
 export type Command =
   | 'next-unit'
   | 'previous-unit'
-  | 'label:identified'
-  | 'label:not identified'
-  | 'label:unsure'
+  | 'label:tagged'
+  | 'label:borderline'
+  | 'label:untagged'
   | 'label:clear'
   | 'toggle-include'
   | 'focus-note'
@@ -39,10 +39,10 @@ export interface Shortcut {
 export const SHORTCUTS: readonly Shortcut[] = [
   { keys: 'Ctrl/Cmd + Down', command: 'next-unit', description: 'Next unit (table order)' },
   { keys: 'Ctrl/Cmd + Up', command: 'previous-unit', description: 'Previous unit' },
-  { keys: '1', command: 'label:identified', description: 'Label the unit "identified"' },
-  { keys: '2', command: 'label:not identified', description: 'Label the unit "not identified"' },
-  { keys: '3', command: 'label:unsure', description: 'Label the unit "unsure"' },
-  { keys: '0', command: 'label:clear', description: 'Clear the label' },
+  { keys: '1', command: 'label:tagged', description: 'Label the unit\'s tag "tagged" (your call beside the computed verdict)' },
+  { keys: '2', command: 'label:borderline', description: 'Label the tag "borderline"' },
+  { keys: '3', command: 'label:untagged', description: 'Label the tag "untagged"' },
+  { keys: '0', command: 'label:clear', description: 'Clear your tag label (the computed verdict stays)' },
   { keys: 'X', command: 'toggle-include', description: 'Include or exclude the unit' },
   { keys: 'N', command: 'focus-note', description: 'Write a note (Esc leaves the note)' },
   { keys: 'Ctrl/Cmd + Z', command: 'undo', description: 'Undo the last curation change' },
@@ -88,9 +88,9 @@ export function keyToCommand(e: KeyLike, inText: boolean): Command | null {
   }
   if (inText) return null;
   switch (k) {
-    case '1': return 'label:identified';
-    case '2': return 'label:not identified';
-    case '3': return 'label:unsure';
+    case '1': return 'label:tagged';
+    case '2': return 'label:borderline';
+    case '3': return 'label:untagged';
     case '0': return 'label:clear';
     case 'x': return 'toggle-include';
     case 'n': return 'focus-note';

@@ -1,12 +1,12 @@
 import type Plotly from 'plotly.js-dist-min';
 import { loadPlotly } from '../components/load-plotly';
+import { withSvgTraces } from '../components/webgl-fallback';
 import { useEffect, useState } from 'react';
-import type { EventResponseOptions } from '../../core/figures/event-response-figure';
+import type { CurationHistory } from '../../core/curation/history';
 import type { FigureSpec } from '../../core/figures/theme';
-import type { OpenSession } from '../app/App';
+import { SESSION_FILE_NAME, sessionFileText, type OpenSession } from '../app/App';
 import type { Host } from '../host/host';
-import { curationCsv, type CurationState } from '../state/curation';
-import { serialiseState } from '../state/saved-state';
+import type { EventView } from '../worker/api';
 import type { AnalysisClient } from '../worker/client';
 
 /** Figure sizes of exports, px (at scale 1 the SVG's own size; PNG at scale 2 for print). */
@@ -32,12 +32,13 @@ export function ExportScreen(props: {
   client: AnalysisClient;
   host: Host;
   session: OpenSession;
-  curation: CurationState;
+  history: CurationHistory;
   unitIndex: number;
-  eventOptions: EventResponseOptions;
+  eventOptions: EventView;
   onStatus: (s: string) => void;
 }) {
-  const { client, host, session, curation, unitIndex, eventOptions, onStatus } = props;
+  const { client, host, session, history, unitIndex, eventOptions, onStatus } = props;
+  const curation = history.present;
   const [figures, setFigures] = useState<NamedFigure[]>([]);
   const [working, setWorking] = useState(false);
   const unitId = session.unitIds[unitIndex];
@@ -45,8 +46,7 @@ export function ExportScreen(props: {
 
   useEffect(() => {
     let live = true;
-    const excluded = Object.entries(curation.byUnit).filter(([, c]) => !c.included).map(([id]) => id);
-    void Promise.all([client.unitView(unitIndex, eventOptions), client.population(excluded)]).then(([u, p]) => {
+    void Promise.all([client.unitView(unitIndex, eventOptions), client.population(curation)]).then(([u, p]) => {
       if (!live) return;
       setFigures([
         { name: `${base}_timeline`, title: 'Session timeline', spec: session.info.timeline },
@@ -57,7 +57,7 @@ export function ExportScreen(props: {
     return () => {
       live = false;
     };
-  }, [client, unitIndex, eventOptions, session, curation.byUnit, base, unitId]);
+  }, [client, unitIndex, eventOptions, session, curation, base, unitId]);
 
   const save = async (fileName: string, data: () => Promise<string | Uint8Array>, mime: string) => {
     setWorking(true);
@@ -76,7 +76,8 @@ export function ExportScreen(props: {
       `${f.name}.${format}`,
       async () => {
         const height = Number((f.spec.layout as { height?: number }).height) || 450;
-        const url = await (await loadPlotly()).toImage({ data: f.spec.data as Plotly.Data[], layout: f.spec.layout as Partial<Plotly.Layout> }, { format, width: EXPORT_WIDTH, height, scale: format === 'png' ? 2 : 1 });
+        const spec = withSvgTraces(f.spec);
+        const url = await (await loadPlotly()).toImage({ data: spec.data as Plotly.Data[], layout: spec.layout as Partial<Plotly.Layout> }, { format, width: EXPORT_WIDTH, height, scale: format === 'png' ? 2 : 1 });
         return dataUrlBytes(url);
       },
       format === 'svg' ? 'image/svg+xml' : 'image/png',
@@ -90,22 +91,23 @@ export function ExportScreen(props: {
           <h2>Tables</h2>
           <ul className="export-list">
             <li>
-              <button disabled={working} onClick={() => save('units.csv', () => client.tableText(','), 'text/csv')} data-testid="export-units-csv">units.csv</button>
-              <span className="muted">one row per unit, the headless run's columns (comma-separated)</span>
+              <button disabled={working} onClick={() => save('units.csv', () => client.tableText('csv', null), 'text/csv')} data-testid="export-units-csv">units.csv</button>
+              <span className="muted">one row per unit, the computed columns of the headless run</span>
             </li>
             <li>
-              <button disabled={working} onClick={() => save('units.tsv', () => client.tableText('\t'), 'text/tab-separated-values')}>units.tsv</button>
-              <span className="muted">the same, tab-separated</span>
+              <button disabled={working} onClick={() => save('units_curated.csv', () => client.tableText('csv', curation), 'text/csv')} data-testid="export-curated-csv">units_curated.csv</button>
+              <span className="muted">the same plus final_* (your labels where set), included, note and who curated when</span>
             </li>
             <li>
-              <button disabled={working} onClick={() => save('curation.csv', async () => curationCsv(curation, session.unitIds), 'text/csv')} data-testid="export-curation-csv">curation.csv</button>
-              <span className="muted">your label, include/exclude and note per unit</span>
+              <button disabled={working} onClick={() => save('units_curated.tsv', () => client.tableText('tsv', curation), 'text/tab-separated-values')}>.tsv</button>
+              <button disabled={working} onClick={() => save('units_curated.json', () => client.tableText('json', curation), 'application/json')}>.json</button>
+              <span className="muted">the curated table, tab-separated or as JSON</span>
             </li>
             <li>
-              <button disabled={working} onClick={() => save(`${base}.tagbench-workbench.json`, async () => serialiseState(session.opened.name, session.overrides, curation, new Date()), 'application/json')}>
-                workbench state (JSON)
+              <button disabled={working} onClick={() => save(SESSION_FILE_NAME, async () => sessionFileText(session, history, new Date()), 'application/json')} data-testid="export-session-file">
+                {SESSION_FILE_NAME}
               </button>
-              <span className="muted">analysis settings and curation, to reopen elsewhere</span>
+              <span className="muted">the session file: input hashes, parameters and your curation, to reopen the work</span>
             </li>
           </ul>
         </section>

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import type { OpenSession } from '../app/App';
 import { Plot } from '../components/Plot';
 import { VerdictBadge } from '../components/VerdictBadge';
-import type { CurationState } from '../state/curation';
+import type { CurationState } from '../../core/curation/types';
 import type { PopulationView } from '../worker/api';
 import type { AnalysisClient } from '../worker/client';
 
@@ -10,19 +10,17 @@ import type { AnalysisClient } from '../worker/client';
 export function PopulationScreen({ client, session, curation }: { client: AnalysisClient; session: OpenSession; curation: CurationState }) {
   const [view, setView] = useState<PopulationView | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const excluded = Object.entries(curation.byUnit).filter(([, c]) => !c.included).map(([id]) => id);
-  const key = excluded.join('\u0000');
+  const excluded = Object.entries(curation.units).filter(([, c]) => c.include?.value === false).map(([id]) => id);
   useEffect(() => {
     let live = true;
-    client.population(excluded).then(
+    client.population(curation).then(
       (v) => live && setView(v),
       (e: Error) => live && setError(e.message),
     );
     return () => {
       live = false;
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [client, session.analysis, key]);
+  }, [client, session.analysis, curation]);
   if (error) return <div className="screen"><p className="error-message">{error}</p></div>;
   if (!view) return <div className="screen"><p className="muted">Summarising...</p></div>;
   return (
@@ -38,12 +36,15 @@ export function PopulationScreen({ client, session, curation }: { client: Analys
             <section className="panel" key={c.column}>
               <h2>{c.column}</h2>
               <table className="plain">
+                <thead>
+                  <tr><th /><th className="num">computed</th><th className="num">after your labels</th></tr>
+                </thead>
                 <tbody>
                   {c.counts.map((x) => (
                     <tr key={x.word}>
                       <td><VerdictBadge word={x.word} /></td>
-                      <td className="num">{x.n}</td>
-                      <td className="num muted">{view.units ? `${Math.round((100 * x.n) / view.units)} %` : ''}</td>
+                      <td className="num">{x.computed}</td>
+                      <td className="num">{x.final}{view.units ? <span className="muted"> ({Math.round((100 * x.final) / view.units)} %)</span> : null}</td>
                     </tr>
                   ))}
                 </tbody>

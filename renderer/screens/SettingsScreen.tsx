@@ -1,7 +1,8 @@
 import { useEffect, useMemo, useState } from 'react';
 import defaultsSource from '../../core/defaults.ts?raw';
 import { DEFAULTS } from '../../core/defaults';
-import type { OpenSession, Overrides } from '../app/App';
+import { CURATOR_KEY, curatorName, type OpenSession, type Overrides } from '../app/App';
+import { writeLocal } from '../host/browser-host';
 import { parseParameterDocs, unitOfKey } from '../settings/parameter-docs';
 import { PARAMETER_HELP } from '../settings/parameter-help';
 
@@ -46,7 +47,8 @@ export function draftToOverrides(draft: Draft): { overrides: Overrides; error: s
 }
 
 /** Analysis settings: every parameter with its default, unit and explanation; re-run with progress; saved with the session. */
-export function SettingsScreen({ session, onRun, error, busy }: { session: OpenSession; onRun: (o: Overrides) => void; error: string | null; busy: boolean }) {
+export function SettingsScreen({ session, onRun, error, busy, onStatus }: { session: OpenSession; onRun: (o: Overrides) => void; error: string | null; busy: boolean; onStatus: (s: string) => void }) {
+  const [curator, setCurator] = useState(curatorName);
   const current = session.analysis.parameters as unknown as Record<string, Record<string, unknown>>;
   const [draft, setDraft] = useState<Draft>(() => toDraft(current));
   useEffect(() => setDraft(toDraft(current)), [current]);
@@ -62,6 +64,19 @@ export function SettingsScreen({ session, onRun, error, busy }: { session: OpenS
         </button>
         <button disabled={busy} onClick={() => setDraft(toDraft(DEFAULTS as unknown as Record<string, Record<string, unknown>>))}>Reset all to defaults</button>
         <span className="muted small">Settings are saved with the session; changed values are marked.</span>
+        <label className="control curator">
+          Your name on curation decisions
+          <input
+            value={curator}
+            onChange={(e) => setCurator(e.target.value)}
+            onBlur={() => {
+              writeLocal(CURATOR_KEY, curator.trim());
+              onStatus(`Curation decisions will be signed "${curatorName()}".`);
+            }}
+            spellCheck={false}
+            aria-label="Your name on curation decisions"
+          />
+        </label>
       </div>
       {(parsed.error || error) && <p className="error-message" role="alert">{parsed.error ?? error}</p>}
       <div className="settings-sections">

@@ -1,11 +1,13 @@
 import { useEffect, useState, type RefObject } from 'react';
-import type { EventResponseOptions } from '../../core/figures/event-response-figure';
+import type { UnitCuration } from '../../core/curation/types';
+import { verdictWords } from '../../core/curation/verdict-words';
 import { formatNumber } from '../../core/table/format-number';
 import type { OpenSession } from '../app/App';
 import { Plot } from '../components/Plot';
-import { isVerdictWord, VerdictBadge } from '../components/VerdictBadge';
-import { CURATION_LABELS, type UnitCuration } from '../state/curation';
-import type { UnitSection, UnitView } from '../worker/api';
+import { VerdictBadge } from '../components/VerdictBadge';
+import type { UnstampedAction } from '../state/curation-edits';
+import { isVerdictColumn } from '../state/verdict-columns';
+import type { EventView, UnitSection, UnitView } from '../worker/api';
 
 const SECTIONS: readonly { id: UnitSection; title: string }[] = [
   { id: 'light', title: 'Light response' },
@@ -25,19 +27,21 @@ export function UnitPageScreen(props: {
   unitIndex: number;
   view: UnitView | null;
   curation: UnitCuration;
-  onEdit: (change: Partial<UnitCuration>) => void;
+  onEdit: (action: UnstampedAction) => void;
   noteRef: RefObject<HTMLTextAreaElement | null>;
-  eventOptions: EventResponseOptions;
-  onEventOptions: (o: EventResponseOptions) => void;
+  eventOptions: EventView;
+  onEventOptions: (o: EventView) => void;
   position: { at: number; of: number };
   onStep: (d: 1 | -1) => void;
 }) {
   const { session, unitIndex, view, curation, onEdit, noteRef, eventOptions, onEventOptions, position, onStep } = props;
   const table = session.analysis.table;
   const unitId = session.unitIds[unitIndex];
-  const [note, setNote] = useState(curation.note);
-  useEffect(() => setNote(curation.note), [curation.note, unitId]);
-  const verdicts = table.columns.filter((c) => c.kind === 'string' && c.name !== 'unit' && isVerdictWord(c.values[unitIndex]));
+  const savedNote = curation.note?.text ?? '';
+  const [note, setNote] = useState(savedNote);
+  useEffect(() => setNote(savedNote), [savedNote, unitId]);
+  const verdicts = table.columns.filter(isVerdictColumn);
+  const included = curation.include?.value !== false;
 
   return (
     <div className="screen unit-page">
@@ -48,40 +52,51 @@ export function UnitPageScreen(props: {
           <button onClick={() => onStep(1)} title="Next unit (Ctrl/Cmd + Down)" aria-label="Next unit">&#8595;</button>
         </div>
         <div className="muted small">{position.at >= 0 ? `${position.at + 1} of ${position.of} in the table's order` : 'not in the filtered table'}</div>
-        {verdicts.length > 0 && (
-          <dl className="verdicts">
-            {verdicts.map((c) => (
-              <div key={c.name} title={c.description}>
-                <dt>{c.name}</dt>
-                <dd><VerdictBadge word={c.values[unitIndex] as string} /></dd>
+        <section className="curation" aria-label="Verdicts and your labels">
+          <h2>Verdicts and your labels</h2>
+          {verdicts.length === 0 && <p className="muted small">This analysis gives no verdicts yet.</p>}
+          {verdicts.map((c) => {
+            const mine = curation.labels[c.name];
+            return (
+              <div className="verdict-row" key={c.name} title={c.description}>
+                <div className="verdict-head">
+                  <span className="verdict-col">{c.name}</span>
+                  <VerdictBadge word={c.values[unitIndex] as string} />
+                  {mine && <span className="muted small">yours: {mine.value}</span>}
+                </div>
+                <div className="label-buttons" role="radiogroup" aria-label={`Your ${c.name} label`}>
+                  {verdictWords(c.name)!.map((w) => (
+                    <button
+                      key={w}
+                      role="radio"
+                      aria-checked={mine?.value === w}
+                      className={mine?.value === w ? 'chip on' : 'chip'}
+                      onClick={() => onEdit({ type: 'label', unit: unitId, column: c.name, value: mine?.value === w ? null : w })}
+                      title={mine?.value === w ? `Set by ${mine.by} at ${mine.at}; click to clear` : `Label ${c.name} "${w}"`}
+                    >
+                      {w}
+                    </button>
+                  ))}
+                </div>
               </div>
-            ))}
-          </dl>
-        )}
-        <section className="curation" aria-label="Curation">
-          <h2>Curation</h2>
-          <div className="label-buttons" role="radiogroup" aria-label="Label">
-            {CURATION_LABELS.map((l, i) => (
-              <button key={l} role="radio" aria-checked={curation.label === l} className={curation.label === l ? 'chip on' : 'chip'} onClick={() => onEdit({ label: curation.label === l ? null : l })} title={`Key ${i + 1}`}>
-                {l}
-              </button>
-            ))}
-          </div>
+            );
+          })}
           <label className="check">
-            <input type="checkbox" checked={curation.included} onChange={(e) => onEdit({ included: e.target.checked })} /> included in summaries and exports (X)
+            <input type="checkbox" checked={included} onChange={(e) => onEdit({ type: 'include', unit: unitId, value: e.target.checked })} /> included in summaries and exports (X)
           </label>
           <textarea
             ref={noteRef}
             value={note}
             placeholder="Note (N to write; saved when you leave the field)"
             onChange={(e) => setNote(e.target.value)}
-            onBlur={() => onEdit({ note })}
+            onBlur={() => note !== savedNote && onEdit({ type: 'note', unit: unitId, text: note })}
             onKeyDown={(e) => {
               if (e.key === 'Escape') e.currentTarget.blur();
             }}
             rows={3}
             aria-label="Note"
           />
+          {curation.note && <div className="muted small">note by {curation.note.by}, {curation.note.at.slice(0, 16).replace('T', ' ')} UTC</div>}
         </section>
         {view && view.reasons.length > 0 && (
           <section>
@@ -98,7 +113,7 @@ export function UnitPageScreen(props: {
           <table className="metrics">
             <tbody>
               {table.columns
-                .filter((c) => c.name !== 'unit' && !(c.kind === 'string' && (isVerdictWord(c.values[unitIndex]) || /reasons?$/.test(c.name))))
+                .filter((c) => c.name !== 'unit' && !isVerdictColumn(c) && !(c.kind === 'string' && /reasons?$/.test(c.name)))
                 .map((c) => (
                   <tr key={c.name} title={c.description}>
                     <th>{c.name}</th>
@@ -133,15 +148,15 @@ export function UnitPageScreen(props: {
   );
 }
 
-/** Window, bin, smoothing and grouping of the event response. Values apply on change (Enter or leaving a field). */
-function EventControls({ session, options, onChange }: { session: OpenSession; options: EventResponseOptions; onChange: (o: EventResponseOptions) => void }) {
+/** Window, bin, smoothing and grouping of the event response (display only; Analysis settings holds the saved values). Values apply on Enter or leaving a field. */
+function EventControls({ session, options, onChange }: { session: OpenSession; options: EventView; onChange: (o: EventView) => void }) {
   const [draft, setDraft] = useState(options);
   useEffect(() => setDraft(options), [options]);
-  const commit = (next: EventResponseOptions) => {
-    if (next.windowEndS > next.windowStartS && next.binMs > 0 && next.smoothMs >= 0) onChange(next);
+  const commit = (next: EventView) => {
+    if (next.windowStopS > next.windowStartS && next.binMs > 0 && next.smoothingWidthMs >= 0) onChange(next);
     else setDraft(options);
   };
-  const num = (key: 'windowStartS' | 'windowEndS' | 'binMs' | 'smoothMs', label: string, unit: string, stepV: number) => (
+  const num = (key: 'windowStartS' | 'windowStopS' | 'binMs' | 'smoothingWidthMs', label: string, unit: string, stepV: number) => (
     <label className="control">
       {label}
       <input
@@ -167,12 +182,21 @@ function EventControls({ session, options, onChange }: { session: OpenSession; o
         </select>
       </label>
       {num('windowStartS', 'From', 's', 0.1)}
-      {num('windowEndS', 'to', 's', 0.1)}
+      {num('windowStopS', 'to', 's', 0.1)}
       {num('binMs', 'Bin', 'ms', 5)}
-      {num('smoothMs', 'Smoothing sd', 'ms', 5)}
+      <label className="control">
+        Smoothing
+        <select value={draft.smoothing} onChange={(e) => commit({ ...draft, smoothing: e.target.value })} aria-label="Smoothing">
+          <option value="none">none</option>
+          <option value="gaussian">Gaussian</option>
+          <option value="exponential">exponential</option>
+          <option value="boxcar">boxcar</option>
+        </select>
+      </label>
+      {num('smoothingWidthMs', 'width', 'ms', 5)}
       <label className="control">
         Split by
-        <select value={draft.groupBy} onChange={(e) => commit({ ...draft, groupBy: e.target.value as EventResponseOptions['groupBy'] })} aria-label="Split trials by">
+        <select value={draft.groupBy} onChange={(e) => commit({ ...draft, groupBy: e.target.value })} aria-label="Split trials by">
           <option value="condition">trial condition</option>
           <option value="kind">event kind</option>
           <option value="none">nothing</option>

@@ -2,7 +2,8 @@ import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { formatNumber } from '../../core/table/format-number';
 import type { OpenSession, TableViewState } from '../app/App';
 import { isVerdictWord, VerdictBadge } from '../components/VerdictBadge';
-import { curationOf, type CurationState } from '../state/curation';
+import type { CurationState } from '../../core/curation/types';
+import { isIncluded, labelSummary, unitCurationOf } from '../state/curation-edits';
 import { visibleRange } from '../state/table-view';
 import type { TableColumnData } from '../worker/api';
 
@@ -35,7 +36,7 @@ export function UnitTableScreen(props: {
   const table = session.analysis.table;
   const columns = table.columns;
   const widths = useMemo(() => columns.map(widthOf), [columns]);
-  const template = `${widths.map((w) => `${w}px`).join(' ')} 112px 70px`;
+  const template = `${widths.map((w) => `${w}px`).join(' ')} 150px 70px`;
   const scroller = useRef<HTMLDivElement>(null);
   const [scrollTop, setScrollTop] = useState(0);
   const [viewport, setViewport] = useState(600);
@@ -79,13 +80,15 @@ export function UnitTableScreen(props: {
   const rows = [];
   for (let k = first; k < last; k++) {
     const r = order[k];
-    const cur = curationOf(curation, session.unitIds[r]);
+    const id = session.unitIds[r];
+    const included = isIncluded(curation, id);
+    const labels = labelSummary(unitCurationOf(curation, id));
     rows.push(
       <div
         key={r}
         role="row"
         aria-selected={r === selected}
-        className={`trow${r === selected ? ' selected' : ''}${cur.included ? '' : ' excluded'}`}
+        className={`trow${r === selected ? ' selected' : ''}${included ? '' : ' excluded'}`}
         style={{ top: ROW_PX * (k + 1), gridTemplateColumns: template }}
         onClick={() => onSelect(r)}
         onDoubleClick={() => onOpen(r)}
@@ -96,8 +99,8 @@ export function UnitTableScreen(props: {
             {c.kind === 'number' ? formatNumber(c.values[r], 4) : isVerdictWord(c.values[r]) ? <VerdictBadge word={c.values[r]} /> : c.values[r]}
           </div>
         ))}
-        <div role="cell" className="cell">{cur.label ?? ''}</div>
-        <div role="cell" className="cell">{cur.included ? 'yes' : 'no'}</div>
+        <div role="cell" className="cell" title={labels}>{labels}</div>
+        <div role="cell" className="cell">{included ? 'yes' : 'no'}</div>
       </div>,
     );
   }
@@ -121,7 +124,7 @@ export function UnitTableScreen(props: {
         {filterError && <span className="filter-error">{filterError}</span>}
       </div>
       <div className="vtable" ref={scroller} tabIndex={0} onKeyDown={onKey} onScroll={(e) => setScrollTop(e.currentTarget.scrollTop)} role="table" aria-rowcount={order.length + 1} data-testid="unit-table">
-        <div className="vtable-body" style={{ height: ROW_PX * (order.length + 1), minWidth: widths.reduce((a, b) => a + b, 0) + 182 }}>
+        <div className="vtable-body" style={{ height: ROW_PX * (order.length + 1), minWidth: widths.reduce((a, b) => a + b, 0) + 220 }}>
           <div className="thead" role="row" style={{ gridTemplateColumns: template }}>
             {columns.map((c) => (
               <button key={c.name} role="columnheader" className={c.kind === 'number' ? 'th num' : 'th'} title={c.description} onClick={() => sortBy(c.name)}
@@ -130,7 +133,7 @@ export function UnitTableScreen(props: {
                 {view.sortColumn === c.name ? (view.direction === 'ascending' ? ' \u25B4' : ' \u25BE') : ''}
               </button>
             ))}
-            <div role="columnheader" className="th" title="Your curation label">label</div>
+            <div role="columnheader" className="th" title="Your labels (beside the computed verdicts)">your labels</div>
             <div role="columnheader" className="th" title="Included in population summaries and exports">included</div>
           </div>
           {rows}

@@ -4,7 +4,9 @@
  * settings screen can never drift from the code: each `/** ... *\/` comment
  * above a key of a section becomes that parameter's explanation, and the
  * section's comment its heading's explanation. Units come from the key's
- * suffix (windowMs -> ms), the house naming rule.
+ * suffix (windowMs -> ms), the house naming rule. A comment above a run of
+ * keys (no blank line or other comment between) documents each key of the run
+ * ("Window around the event, s." above windowStartS and windowStopS).
  */
 export interface ParameterDoc {
   readonly section: string;
@@ -31,7 +33,11 @@ export function parseParameterDocs(source: string): Map<string, ParameterDoc> {
       inComment = !line.endsWith('*/');
       continue;
     }
-    if (line.startsWith('//') || line === '') continue;
+    if (line.startsWith('//')) continue;
+    if (line === '') {
+      pending = [];
+      continue;
+    }
     const key = /^([A-Za-z_$][\w$]*)\s*:/.exec(line)?.[1];
     if (depth === 0 && key && line.endsWith('{')) {
       section = key;
@@ -40,6 +46,8 @@ export function parseParameterDocs(source: string): Map<string, ParameterDoc> {
     } else if (depth === 1 && key && section) {
       out.set(`${section}.${key}`, { section, key, text: pending.join(' ') });
       if (line.endsWith('{') || line.endsWith('[')) depth = 2;
+      // A comment above a run of keys (no blank line between) documents each of them.
+      continue;
     } else if (depth === 2 && (line.startsWith('}') || line.startsWith(']'))) {
       depth = 1;
     } else if (depth === 1 && line.startsWith('}')) {

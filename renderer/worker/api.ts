@@ -5,7 +5,7 @@
  */
 import type { Parameters } from '../../core/defaults';
 import type { FigureSpec } from '../../core/figures/theme';
-import type { EventResponseOptions } from '../../core/figures/event-response-figure';
+import type { CurationState } from '../../core/curation/types';
 import type { RecordingSummary } from '../../core/model/summarise-recording';
 import type { Warning } from '../../core/model/types';
 import type { InputFileRecord } from '../../core/io/import-result';
@@ -74,17 +74,23 @@ export interface PopulationView {
   /** Units summarised (after exclusions). */
   readonly units: number;
   readonly figures: readonly { id: string; title: string; spec: FigureSpec }[];
-  readonly counts: readonly { column: string; counts: readonly { word: string; n: number }[] }[];
+  /** Units per verdict word of each verdict column, computed and final (after the person's labels). */
+  readonly counts: readonly { column: string; counts: readonly { word: string; computed: number; final: number }[] }[];
 }
+
+/** The Unit page's view of the event response: these fields of parameters.align, changed for display only. */
+export type EventView = Pick<Parameters['align'], 'event' | 'windowStartS' | 'windowStopS' | 'binMs' | 'smoothing' | 'smoothingWidthMs' | 'groupBy'>;
+
+export type TableFormat = 'csv' | 'tsv' | 'json';
 
 export interface WorkbenchApi {
   /** Imports a session and runs the analysis with the given parameter overrides. */
   open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome>;
   /** Re-runs the analysis with new parameter overrides (validated; an InputError names the bad key). */
   analyse(overrides: unknown, onProgress: (p: Progress) => void): Promise<AnalysisOutcome>;
-  unitView(unitIndex: number, eventOptions: EventResponseOptions): Promise<UnitView>;
-  /** Population summaries over the units not excluded by curation. */
-  population(excludedUnitIds: readonly string[]): Promise<PopulationView>;
-  /** The unit table as delimited text (units.csv layout). */
-  tableText(delimiter: ',' | '\t'): Promise<string>;
+  unitView(unitIndex: number, eventView: EventView): Promise<UnitView>;
+  /** Population summaries over the units the curation does not exclude. */
+  population(curation: CurationState): Promise<PopulationView>;
+  /** The unit table as text (units.csv layout); with curation, final_* / included / note columns follow (applyCuration). */
+  tableText(format: TableFormat, curation: CurationState | null): Promise<string>;
 }

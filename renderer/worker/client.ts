@@ -1,6 +1,6 @@
 import { proxy, wrap, type Remote } from 'comlink';
-import type { EventResponseOptions } from '../../core/figures/event-response-figure';
-import type { AnalysisOutcome, OpenOutcome, PopulationView, Progress, SessionFileInput, UnitView, WorkbenchApi } from './api';
+import type { CurationState } from '../../core/curation/types';
+import type { AnalysisOutcome, EventView, OpenOutcome, PopulationView, Progress, SessionFileInput, TableFormat, UnitView, WorkbenchApi } from './api';
 
 /** Thrown into a pending call when the user cancels it. */
 export class CancelledError extends Error {
@@ -55,16 +55,16 @@ export class AnalysisClient {
     return out;
   }
 
-  unitView(unitIndex: number, options: EventResponseOptions): Promise<UnitView> {
-    return this.cancellable(this.api.unitView(unitIndex, options));
+  unitView(unitIndex: number, view: EventView): Promise<UnitView> {
+    return this.cancellable(this.api.unitView(unitIndex, view));
   }
 
-  population(excludedUnitIds: readonly string[]): Promise<PopulationView> {
-    return this.cancellable(this.api.population(excludedUnitIds));
+  population(curation: CurationState): Promise<PopulationView> {
+    return this.cancellable(this.api.population(curation));
   }
 
-  tableText(delimiter: ',' | '\t'): Promise<string> {
-    return this.cancellable(this.api.tableText(delimiter));
+  tableText(format: TableFormat, curation: CurationState | null): Promise<string> {
+    return this.cancellable(this.api.tableText(format, curation));
   }
 
   /** Stops whatever the worker is doing; pending calls reject with CancelledError. */

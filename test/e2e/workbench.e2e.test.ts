@@ -84,7 +84,7 @@ describe.sequential('workbench in a real browser', () => {
     await plot.waitFor({ timeout: LONG });
     expect(await plot.locator('.scatterlayer .trace').count()).toBeGreaterThan(1);
     expect(await plot.locator('.xtitle').textContent()).toMatch(/^Time from \w+ \(s\)$/);
-    expect(await plot.locator('.ytitle').first().textContent()).toMatch(/\(spikes\/s\)|Event/);
+    expect(await plot.locator('.ytitle').first().textContent()).toMatch(/\((spikes\/s|Hz)\)|Trial|Event/);
     await shot('4-unit-page');
     // Next unit by keyboard.
     await wb.page.keyboard.press('Control+ArrowDown');
@@ -96,35 +96,46 @@ describe.sequential('workbench in a real browser', () => {
   it('sets a label by key, shows it in the table, and undoes it', async () => {
     const title = await wb.page.getByTestId('unit-title').innerText();
     const id = title.replace('Unit ', '');
+    const yourTag = wb.page.getByRole('radiogroup', { name: 'Your tag label' });
     await wb.page.keyboard.press('1');
-    await expect.poll(() => wb.page.getByRole('radio', { name: 'identified', exact: true }).getAttribute('aria-checked')).toBe('true');
-    expect(await wb.page.locator('.status-text').innerText()).toBe(`unit ${id}: label identified`);
+    await expect.poll(() => yourTag.getByRole('radio', { name: 'tagged', exact: true }).getAttribute('aria-checked')).toBe('true');
+    expect(await wb.page.locator('.status-text').innerText()).toBe(`unit ${id}: tag labelled tagged`);
+    await shot('4b-unit-page-labelled');
     await wb.page.getByRole('button', { name: 'Unit table' }).click();
-    expect(await wb.page.locator(`.trow[data-unit="${id}"] .cell`).nth(-2).innerText()).toBe('identified');
+    const labelCell = () => wb.page.locator(`.trow[data-unit="${id}"] .cell`).nth(-2).innerText();
+    expect(await labelCell()).toBe('tag: tagged');
     await wb.page.keyboard.press('Control+z');
-    await expect.poll(() => wb.page.locator(`.trow[data-unit="${id}"] .cell`).nth(-2).innerText()).toBe('');
-    expect(await wb.page.locator('.status-text').innerText()).toBe(`Undone: unit ${id}: label identified`);
+    await expect.poll(labelCell).toBe('');
+    expect(await wb.page.locator('.status-text').innerText()).toBe(`Undone: change to unit ${id}.`);
     await wb.page.keyboard.press('Control+Shift+Z');
-    await expect.poll(() => wb.page.locator(`.trow[data-unit="${id}"] .cell`).nth(-2).innerText()).toBe('identified');
+    await expect.poll(labelCell).toBe('tag: tagged');
     await wb.page.keyboard.press('Control+z');
+    await expect.poll(labelCell).toBe('');
   }, LONG);
 
   it('changes a parameter, re-runs the analysis, and keeps the setting with the session', async () => {
+    const tableText = () => wb.page.locator('.vtable-body').innerText();
+    const before = await tableText();
     await wb.page.getByRole('button', { name: 'Analysis settings' }).click();
-    const input = wb.page.locator('#p-ramp-binS');
-    await input.fill('0.05');
+    await wb.page.locator('#p-light-windowEndMs').fill('4');
     await wb.page.getByTestId('rerun').click();
     await expect.poll(() => wb.page.locator('.status-text').innerText(), { timeout: 60_000 }).toMatch(/^Analysis re-run in \d+ ms with changed settings\.$/);
-    expect(await wb.page.locator('tr.changed th').allInnerTexts()).toEqual(['binS']);
+    expect(await wb.page.locator('tr.changed th').allInnerTexts()).toEqual(['windowEndMs']);
     await shot('5-analysis-settings');
-    const saved = await wb.page.evaluate(() => {
-      for (let i = 0; i < localStorage.length; i++) {
-        const k = localStorage.key(i)!;
-        if (k.startsWith('tagbench:state:demo')) return JSON.parse(localStorage.getItem(k)!);
-      }
-      return null;
-    });
-    await expect.poll(async () => saved?.parameters).toEqual({ ramp: { binS: 0.05 } });
+    await wb.page.getByRole('button', { name: 'Unit table' }).click();
+    expect(await tableText()).not.toBe(before);
+    // The session file kept in this browser holds the new value (autosave).
+    await expect
+      .poll(() =>
+        wb.page.evaluate(() => {
+          for (let i = 0; i < localStorage.length; i++) {
+            const k = localStorage.key(i)!;
+            if (k.startsWith('tagbench:state:demo')) return JSON.parse(localStorage.getItem(k)!).parameters?.light?.windowEndMs;
+          }
+          return null;
+        }),
+      )
+      .toBe(4);
   }, LONG);
 
   it('shows the population and the keyboard help', async () => {
@@ -152,6 +163,10 @@ describe.sequential('workbench in a real browser', () => {
       const [id, n] = line.split(',');
       expect(Number(n)).toBe(counts.get(id));
     }
+    const [curated] = await Promise.all([wb.page.waitForEvent('download'), wb.page.getByTestId('export-curated-csv').click()]);
+    const head = readFileSync((await curated.path())!, 'utf8').split('\n')[0].split(',');
+    expect(head).toContain('final_tag');
+    expect(head).toContain('included');
     expect(wb.pageErrors).toEqual([]);
   }, LONG);
 });

@@ -15,9 +15,9 @@ describe('keyboard shortcuts', () => {
   it.each([
     [key('ArrowDown', { ctrl: true }), false, 'next-unit'],
     [key('ArrowUp', { meta: true }), false, 'previous-unit'],
-    [key('1'), false, 'label:identified'],
-    [key('2'), false, 'label:not identified'],
-    [key('3'), false, 'label:unsure'],
+    [key('1'), false, 'label:tagged'],
+    [key('2'), false, 'label:borderline'],
+    [key('3'), false, 'label:untagged'],
     [key('0'), false, 'label:clear'],
     [key('X', { shift: true }), false, 'toggle-include'],
     [key('n'), false, 'focus-note'],

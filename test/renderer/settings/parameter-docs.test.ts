@@ -13,6 +13,9 @@ describe('parameter explanations for the Analysis settings screen', () => {
     expect(docs.get('light.saltBinMs')?.text).toBe('SALT latency bin, ms.');
     expect(docs.get('quality.refractoryMs')?.text).toMatch(/^ISI refractory period, ms/);
     expect(docs.get('light.')?.text).toMatch(/Light identification/);
+    // A comment above a run of keys documents each of them.
+    expect(parseParameterDocs('export const DEFAULTS = {\n  a: {\n    /** Window, s. */\n    startS: 0,\n    stopS: 1,\n\n    other: 2,\n  },\n};').get('a.stopS')?.text).toBe('Window, s.');
+    expect(parseParameterDocs('export const DEFAULTS = {\n  a: {\n    /** Window, s. */\n    startS: 0,\n\n    other: 2,\n  },\n};').get('a.other')?.text).toBe('');
   });
   it('every parameter of DEFAULTS has an explanation (its comment in core/defaults.ts or parameter-help.ts)', () => {
     const missing: string[] = [];

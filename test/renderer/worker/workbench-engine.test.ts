@@ -1,7 +1,9 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_EVENT_RESPONSE } from '../../../core/figures/event-response-figure';
+import { DEFAULTS } from '../../../core/defaults';
+import { EMPTY_CURATION } from '../../../core/curation/types';
+import { parseDelimited } from '../../../core/export/parse-delimited';
 import type { SessionFileInput } from '../../../renderer/worker/api';
 import { WorkbenchEngine } from '../../../renderer/worker/workbench-engine';
 
@@ -50,15 +52,27 @@ describe('the workbench engine (what the analysis worker runs)', () => {
   it('draws the event response of a unit and the population counts without excluded units', async () => {
     const engine = new WorkbenchEngine();
     await engine.open(files(TINY), 'tiny', {}, () => undefined);
-    const v = await engine.unitView(4, DEFAULT_EVENT_RESPONSE);
+    const a = DEFAULTS.align;
+    const v = await engine.unitView(4, { event: 'reward', windowStartS: -3, windowStopS: 1, binMs: a.binMs, smoothing: 'none', smoothingWidthMs: 0, groupBy: 'condition' });
     expect(v.unitId).toBe('5');
     const ev = v.figures.find((f) => f.id === 'event-response')!;
     expect(ev.section).toBe('event');
-    // One raster and one PSTH trace per condition (standard, probe).
-    expect(ev.spec.data.map((d) => d.name)).toEqual(['standard', 'standard (n = 10)', 'probe', 'probe (n = 3)']);
-    const pop = await engine.population(['1', '2']);
+    // The page's window reaches the figure: x axis from -3 to 1 s.
+    expect(JSON.stringify(ev.spec.layout)).toContain('-3');
+    expect(v.figures.some((f) => f.section === 'quality')).toBe(true);
+    expect(v.figures.filter((f) => f.section === 'light').length).toBeGreaterThan(0);
+    const at = '2026-01-01T00:00:00.000Z';
+    const curation = { units: { '1': { labels: {}, include: { value: false, by: 't', at } }, '2': { labels: {}, include: { value: false, by: 't', at } } } };
+    const pop = await engine.population(curation);
     expect(pop.units).toBe(6);
-    const text = await engine.tableText(',');
+    expect((await engine.population(EMPTY_CURATION)).units).toBe(8);
+    const text = await engine.tableText('csv', null);
     expect(text.split('\n')[0].startsWith('unit,n_spikes,rate_hz')).toBe(true);
+    const curated = parseDelimited(await engine.tableText('csv', curation), ',', 'units_curated.csv');
+    const header = curated[0];
+    expect(header).toContain('included');
+    expect(curated[1][header.indexOf('unit')]).toBe('1');
+    expect(curated[1][header.indexOf('included')]).toBe('no');
+    expect(curated[3][header.indexOf('included')]).toBe('yes');
   });
 });
