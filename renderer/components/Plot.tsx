@@ -2,7 +2,7 @@ import type Plotly from 'plotly.js-dist-min';
 import { useEffect, useRef } from 'react';
 import type { FigureSpec } from '../../core/figures/theme';
 import { loadPlotly } from './load-plotly';
-import { webGlSupported, withSvgTraces } from './webgl-fallback';
+import { forScreen } from './webgl-fallback';
 
 /** Plotly options shared by every figure on screen. */
 export const PLOT_CONFIG = {
@@ -24,7 +24,7 @@ export function Plot({ spec, testId }: { spec: FigureSpec; testId?: string }) {
     if (!el) return;
     el.dataset.drawn = 'false';
     let live = true;
-    const fig = webGlSupported() ? spec : withSvgTraces(spec);
+    const fig = forScreen(spec);
     void loadPlotly()
       .then((P) => (live ? P.react(el, fig.data as Plotly.Data[], fig.layout as Partial<Plotly.Layout>, PLOT_CONFIG as unknown as Partial<Plotly.Config>) : null))
       .then(() => {

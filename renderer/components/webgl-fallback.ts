@@ -16,6 +16,25 @@ export function webGlSupported(): boolean {
   return supported;
 }
 
+/** Points above which a figure keeps its WebGL traces (when WebGL works): SVG slows down past this. */
+export const WEBGL_MIN_POINTS = 20000;
+
+/** Points in a figure's traces (length of each trace's x). */
+export function pointCount(spec: FigureSpec): number {
+  let n = 0;
+  for (const d of spec.data) n += Array.isArray(d.x) ? d.x.length : 0;
+  return n;
+}
+
+/**
+ * What the screen draws: small figures always as SVG traces (crisp, reliable
+ * without a GPU, and some software-GL browsers refuse WebGL even after a
+ * context test passes); large ones keep WebGL where this page has it.
+ */
+export function forScreen(spec: FigureSpec): FigureSpec {
+  return pointCount(spec) > WEBGL_MIN_POINTS && webGlSupported() ? spec : withSvgTraces(spec);
+}
+
 /**
  * The same figure with WebGL traces (scattergl) drawn as SVG traces
  * (scatter): used where WebGL is missing, and for SVG exports, where WebGL
