@@ -2,7 +2,7 @@
  * Renderer benchmark (DESIGN.md section 7 targets: demo open to drawn unit
  * table < 2 s; unit-to-unit switch < 100 ms). Prints figures; never asserts.
  *
- *   npx tsx bench/renderer-bench.ts [units=1000] [durationS=1800] [switches=20]
+ *   npx tsx bench/renderer-bench.ts [units=1000] [durationS=600] [switches=20]
  *
  * 1. The bundled demo: production build served on 127.0.0.1, Debian's
  *    Chromium (playwright-core); time from the click on "Open the demo
@@ -27,7 +27,7 @@ import { startWebServer } from '../electron/web-server';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const units = Number(process.argv[2] ?? 1000);
-const durationS = Number(process.argv[3] ?? 1800);
+const durationS = Number(process.argv[3] ?? 600);
 const switches = Number(process.argv[4] ?? 20);
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
 

@@ -2,6 +2,7 @@ import { lightFollowingFigure } from '../../core/figures/light-following';
 import { lightLatencyFigure } from '../../core/figures/light-latency';
 import { lightRasterFigure } from '../../core/figures/light-raster';
 import { lightWaveformFigure } from '../../core/figures/light-waveform';
+import { indicatorUnitFigure } from '../../core/figures/indicator-unit-figure';
 import { rasterPsthUnitFigure } from '../../core/figures/raster-psth-unit-figure';
 import { POPULATION_FIGURES, UNIT_FIGURES } from '../../core/figures/registry';
 import type { PopulationFigure, UnitFigure } from '../../core/figures/types';
@@ -14,7 +15,7 @@ function uniqueById<T extends { id: string }>(list: readonly T[]): T[] {
 
 /**
  * The figures of the Unit page, in display order: light response, event
- * response, then every figure of core's registry (quality and what other
+ * response, the predicted indicator trace, then every figure of core's registry (quality and what other
  * analyses register). The Unit page places each in its section by id.
  */
 export const UNIT_FIGURE_LIST: readonly UnitFigure[] = uniqueById([
@@ -23,6 +24,7 @@ export const UNIT_FIGURE_LIST: readonly UnitFigure[] = uniqueById([
   lightFollowingFigure,
   lightWaveformFigure,
   rasterPsthUnitFigure,
+  indicatorUnitFigure,
   ...UNIT_FIGURES,
 ]);
 
