@@ -3,7 +3,10 @@
  * To add one: write core/node/commands/<name>.ts exporting a Command, and
  * add a line here.
  */
+import { loadSession } from '../load-session';
 import { inspectCommand } from './inspect';
+import { createPredictCommand } from './predict';
+import { createPsthCommand } from './psth';
 import { runCommand } from './run';
 import { batchCommand } from './batch';
 import type { Command } from './types';
@@ -11,5 +14,9 @@ import type { Command } from './types';
 export const COMMANDS: readonly Command[] = [
   runCommand,
   inspectCommand,
+  // alignment and indicator kernels
+  createPsthCommand((path) => loadSession(path)),
+  createPredictCommand((path) => loadSession(path)),
+  // many sessions
   batchCommand,
 ];
