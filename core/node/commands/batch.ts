@@ -55,6 +55,9 @@ export const batchCommand: Command = {
     '  --workers <n>     parallel worker threads (default: number of CPUs; 0 = in this thread)',
     '  --force           run every session again, even when unchanged since the last batch',
     '  --json            machine-readable progress and results: one JSON object per line',
+    '  --combine-only    analyse nothing: collect sessions/<name>/ outputs already in <dir> (written',
+    '                    by "tagbench run", e.g. one cluster job per session) into units.csv and',
+    '                    summary.html; sessions without an output are reported as failed',
     '',
     'Writes <dir>/sessions/<name>/{units.csv,run.json} per session, <dir>/units.csv (all units,',
     'with a leading "session" column), <dir>/summary.html and <dir>/batch.json (state for resuming).',
@@ -64,12 +67,13 @@ export const batchCommand: Command = {
     'summary); 1 internal error in some session.',
   ].join('\n'),
   async run(argv, io) {
-    const a = parseCliArgs(argv, 'batch', ['--out', '--list', '--config', '--workers'], ['--help', '-h', '--force', '--json']);
+    const a = parseCliArgs(argv, 'batch', ['--out', '--list', '--config', '--workers'], ['--help', '-h', '--force', '--json', '--combine-only']);
     if (a.flags.has('--help') || a.flags.has('-h')) {
       io.stdout(`${this.usage}\n`);
       return 0;
     }
     const json = a.flags.has('--json');
+    const combineOnly = a.flags.has('--combine-only');
     const force = a.flags.has('--force');
     const out = a.options['--out'];
     if (!out) throw new InputError({ file: 'tagbench batch', problem: 'the --out folder is missing', fix: 'add --out <dir>' });
@@ -114,7 +118,7 @@ export const batchCommand: Command = {
       };
     });
 
-    const nWorkers = Math.min(workers, jobs.length);
+    const nWorkers = combineOnly ? 0 : Math.min(workers, jobs.length);
     const started = performance.now();
     const results: BatchJobResult[] = [];
     const emit = (o: Record<string, unknown>) => io.stdout(`${JSON.stringify(o)}\n`);
@@ -169,7 +173,12 @@ export const batchCommand: Command = {
     };
 
     try {
-      if (nWorkers === 0) {
+      if (combineOnly) {
+        for (const job of jobs) {
+          onStart(0, job);
+          onResult(0, collectOutput(job));
+        }
+      } else if (nWorkers === 0) {
         for (const job of jobs) {
           onStart(0, job);
           onResult(0, await runBatchJob(job, (s) => onStage(0, s)));
@@ -227,6 +236,23 @@ export const batchCommand: Command = {
     return failed.length ? 2 : 0;
   },
 };
+
+/** --combine-only: a session counts as ok when its output folder holds units.csv and a tagbench run.json. */
+function collectOutput(job: BatchJob): BatchJobResult {
+  const base = { index: job.index, name: job.name, session: job.session, seconds: 0, bytes: 0, listingKey: '', parametersKey: job.parametersKey };
+  const runJson = join(job.outDir, 'run.json');
+  let ok = existsSync(join(job.outDir, 'units.csv')) && existsSync(runJson);
+  if (ok) {
+    try {
+      ok = (JSON.parse(readFileSync(runJson, 'utf8')) as { tool?: string }).tool === 'tagbench';
+    } catch {
+      ok = false;
+    }
+  }
+  return ok
+    ? { ...base, status: 'ok', message: 'collected (analysed earlier by tagbench run)' }
+    : { ...base, status: 'failed', failure: 'input', message: `no tagbench output in ${job.outDir} (expected units.csv and run.json written by "tagbench run ${job.session} --out ${job.outDir}")` };
+}
 
 /** Runs jobs on a pool of worker threads, one job per worker at a time. */
 function runPool(
@@ -294,7 +320,7 @@ function readList(listFile: string): string[] {
   return out;
 }
 
-/** The batch output folder may be new, empty, or an earlier batch output; nothing else is overwritten. */
+/** The batch output folder may be new, empty, or hold only batch outputs (sessions/, units.csv, summary.html, batch.json). */
 function prepareOut(outDir: string, given: string): void {
   if (!existsSync(outDir)) {
     if (!existsSync(dirname(outDir))) throw new InputError({ file: given, problem: `the parent folder ${dirname(outDir)} does not exist`, fix: 'create it first or choose another --out' });
@@ -302,9 +328,10 @@ function prepareOut(outDir: string, given: string): void {
     return;
   }
   if (!statSync(outDir).isDirectory()) throw new InputError({ file: given, problem: 'exists and is a file, not a folder', fix: 'choose another --out' });
-  const entries = readdirSync(outDir).filter((e) => !e.startsWith('.'));
-  if (entries.length > 0 && !existsSync(join(outDir, STATE_FILE))) {
-    throw new InputError({ file: given, problem: 'exists and is not an earlier tagbench batch output (no batch.json in it), so it is left untouched', fix: 'choose a new or empty --out folder' });
+  const ours = new Set(['sessions', 'units.csv', 'summary.html', STATE_FILE]);
+  const entries = readdirSync(outDir).filter((e) => !e.startsWith('.') && !ours.has(e));
+  if (entries.length > 0) {
+    throw new InputError({ file: given, value: entries[0], problem: 'exists and holds files that are not a tagbench batch output, so it is left untouched', fix: 'choose a new or empty --out folder' });
   }
 }
 

@@ -56,6 +56,19 @@ beforeAll(() => {
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe('tagbench batch', () => {
+  it('--combine-only collects outputs written by plain run commands (one job per session) without analysing', async () => {
+    const o = join(dir, 'cluster-out');
+    const { runCommand } = await import('../../../../core/node/commands/run');
+    mkdirSync(join(o, 'sessions'), { recursive: true });
+    const quiet = { stdout: () => {}, stderr: () => {}, isTty: false };
+    expect(await runCommand.run([join(dir, 'alpha'), '--out', join(o, 'sessions', 'alpha')], quiet)).toBe(0);
+    const r = await batch([join(dir, 'alpha'), join(dir, 'beta'), '--out', o, '--combine-only']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/beta .*no tagbench output/);
+    expect(parseCsvRecords(readFileSync(join(o, 'units.csv'), 'utf8')).slice(1).map((x) => x[0])).toEqual(['alpha', 'alpha', 'alpha']);
+    expect(existsSync(join(o, 'sessions', 'beta'))).toBe(false);
+  }, 120_000);
+
   it('runs sessions on worker threads, combines the good ones and fails with exit 2 naming the bad one', () => {
     const r = spawnSync(process.execPath, ['--import', 'tsx', join(ROOT, 'core/node/cli.ts'), 'batch', '--list', join(dir, 'list.txt'), '--out', out, '--workers', '2'], {
       cwd: ROOT,
@@ -131,7 +144,7 @@ describe('tagbench batch', () => {
     const foreign = join(dir, 'foreign');
     mkdirSync(foreign);
     writeFileSync(join(foreign, 'notes.txt'), 'mine');
-    await expect(batch([join(dir, 'alpha'), '--out', foreign])).rejects.toThrow(/not an earlier tagbench batch output/);
+    await expect(batch([join(dir, 'alpha'), '--out', foreign])).rejects.toThrow(/holds files that are not a tagbench batch output/);
     expect(readFileSync(join(foreign, 'notes.txt'), 'utf8')).toBe('mine');
     await expect(batch(['--list', join(dir, 'nope.txt'), '--out', join(dir, 'o3')])).rejects.toThrow(/--list file does not exist/);
     expect(existsSync(join(dir, 'o2'))).toBe(false);
