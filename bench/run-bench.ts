@@ -1,5 +1,5 @@
 /**
- * npm run bench [-- --units 1000 --seed 7 --profile --skip-csv]
+ * npm run bench [-- --units 1000 --seed 7 --profile --skip-csv --core-only --all]
  *
  * Benchmarks the engine on the reference session of DESIGN.md section 7
  * (1,000 units, ~2 h, ~20 M spikes, 10,000 pulses, 600 trials), simulated once
@@ -12,10 +12,15 @@
  *   - the full `run` on the NPY form in a fresh process (wall time, peak RSS),
  *     against the targets: <= 3 s, CSV >= 5 M rows/s, peak < 3x the input.
  * --profile also writes a V8 CPU profile of the full run (node --cpu-prof)
- * and prints its top functions by self time. Never asserts; prints figures.
+ * and prints its top functions by self time. Then, unless --core-only, it
+ * runs the areas' own benchmarks in child processes and passes their output
+ * through: bench/csv-import.ts, light-bench.ts, align-bench.ts,
+ * classify-bench.ts; with --all also nwb-session.ts (needs python3 with
+ * h5py to write a large NWB file once) and renderer-bench.ts (needs
+ * Chromium). Never asserts; prints figures.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -143,6 +148,20 @@ async function main(): Promise<void> {
   void csvMs;
   console.log('\nwall / CPU: elapsed time, and CPU time used by this process (user + system); on a busy');
   console.log('machine wall time includes waiting for a core, so compare CPU times with the targets.');
+
+  if (!flag('--core-only')) {
+    const areas = ['csv-import.ts', 'light-bench.ts', 'align-bench.ts', 'classify-bench.ts', ...(flag('--all') ? ['nwb-session.ts', 'renderer-bench.ts'] : [])];
+    for (const a of areas) {
+      const file = join(ROOT, 'bench', a);
+      console.log(`\n=== bench/${a} ${'='.repeat(Math.max(0, 60 - a.length))}`);
+      if (!existsSync(file)) {
+        console.log('(not present in this checkout)');
+        continue;
+      }
+      const r = spawnSync(process.execPath, ['--import', 'tsx', file], { cwd: ROOT, stdio: 'inherit' });
+      if (r.status !== 0) console.log(`bench/${a} exited with code ${r.status} (its figures above are incomplete)`);
+    }
+  }
 }
 
 /** Top functions by self time from a .cpuprofile (V8's JSON format). */
