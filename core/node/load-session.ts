@@ -4,8 +4,8 @@
  *
  * NWB dispatch point (the one place NWB input enters): a path ending in .nwb,
  * or a folder whose session.json has an "nwb" section ({"nwb": {"file": ...,
- * ...settings}}), goes to openNwbInput (core/node/nwb/ reads it) with the path
- * and the section as given. The section's validation belongs to the NWB reader.
+ * ...settings}}), goes to loadNwbSession with the path and the section as
+ * given. Its validation belongs to the NWB reader.
  *
  * Errors: InputError for a missing path, a file that is neither a folder nor
  * .nwb, and everything the importers report.
@@ -17,7 +17,7 @@ import { importSession, MANIFEST_FILE, type ImportOptions } from '../io/import-s
 import type { ImportResult } from '../io/import-result';
 import { parseManifest } from '../io/parse-manifest';
 import { createFsSessionSource } from './create-fs-session-source';
-import { openNwbInput } from './open-nwb-input';
+import { loadNwbSession } from './load-nwb-session';
 import { nodeSha256 } from './node-sha256';
 
 export async function loadSession(path: string, options: ImportOptions = {}): Promise<ImportResult> {
@@ -27,7 +27,7 @@ export async function loadSession(path: string, options: ImportOptions = {}): Pr
   }
   const st = statSync(path);
   if (st.isFile()) {
-    if (extname(path).toLowerCase() === '.nwb') return openNwbInput(path, undefined, opts);
+    if (extname(path).toLowerCase() === '.nwb') return loadNwbSession(path, undefined, opts);
     throw new InputError({ file: basename(path), problem: 'is a file, but a session is a folder of tables or an .nwb file', fix: 'give the folder that holds this file' });
   }
   const manifestPath = join(path, MANIFEST_FILE);
@@ -43,7 +43,7 @@ export async function loadSession(path: string, options: ImportOptions = {}): Pr
       const nwbPath = join(path, sec.file);
       if (!existsSync(nwbPath)) throw new InputError({ file: MANIFEST_FILE, column: 'nwb.file', value: sec.file, problem: 'names a file that is not in the session folder' });
       const params = m.parameters !== undefined ? [{ file: MANIFEST_FILE, overrides: m.parameters }] : [];
-      return openNwbInput(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] }, MANIFEST_FILE);
+      return loadNwbSession(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] });
     }
   }
   return importSession(createFsSessionSource(path), opts);
