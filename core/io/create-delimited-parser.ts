@@ -637,6 +637,11 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
           else extra.set(name, numericIfAll(t));
         } else if (name !== '') ignored.push(name);
       });
+      // drop the blocks now joined, so they can be collected while the table lives on
+      numDone = [];
+      codeDone = [];
+      numCols = [];
+      codeCols = [];
       const bi = breakIdx.slice();
       const bs = breakShift.slice();
       return {
