@@ -3,11 +3,17 @@
  * To add one: write core/node/commands/<name>.ts exporting a Command, and
  * add a line here.
  */
+import { loadSession } from '../load-session';
 import { inspectCommand } from './inspect';
+import { createPredictCommand } from './predict';
+import { createPsthCommand } from './psth';
 import { runCommand } from './run';
 import type { Command } from './types';
 
 export const COMMANDS: readonly Command[] = [
   runCommand,
   inspectCommand,
+  // alignment and indicator kernels
+  createPsthCommand((path) => loadSession(path)),
+  createPredictCommand((path) => loadSession(path)),
 ];
