@@ -6,6 +6,10 @@ import { rateHeatmapFigure } from './quality/rate-heatmap-figure';
 import { rateOverSessionFigure } from './quality/rate-over-session-figure';
 import { verdictCountsFigure } from './quality/verdict-counts-figure';
 import { waveformFigure } from './quality/waveform-figure';
+import { lightFollowingFigure } from './light/light-following';
+import { lightLatencyFigure } from './light/light-latency';
+import { lightRasterFigure } from './light/light-raster';
+import { lightWaveformFigure } from './light/light-waveform';
 import type { PopulationFigure, UnitFigure } from './types';
 
 /**
@@ -21,6 +25,11 @@ export const UNIT_FIGURES: readonly UnitFigure[] = [
   autocorrelogramFigure,
   isiHistogramFigure,
   waveformFigure,
+  // light identification
+  lightRasterFigure,
+  lightLatencyFigure,
+  lightFollowingFigure,
+  lightWaveformFigure,
   // alignment
   rasterPsthUnitFigure,
 ];

@@ -9,7 +9,7 @@
  *   screen on it should only judge units with enough spikes.
  * - `slopeHzPerMin`: least-squares slope of segment rate against segment
  *   centre time, Hz per minute (negative = the unit fades, as when a probe
- *   drifts away from it).
+ *   drifts away from it). Rounding noise of a flat rate is written as 0.
  *
  * Segment choice: our own (no published standard); 10 segments by default.
  * NaN metrics when the span is empty, fewer than 2 segments, or (cv) the
@@ -60,5 +60,8 @@ export function rateDrift(spikeTimes: ArrayLike<number>, startS: number, stopS: 
     sxx += dt * dt;
   }
   const cv = mean > 0 ? Math.sqrt(ss / k) / mean : NaN;
-  return { ratesHz, centresS, cv, slopeHzPerMin: (sxy / sxx) * 60 };
+  let slopeHzPerMin = (sxy / sxx) * 60;
+  // rounding noise of a flat rate (|change over the span| < 1e-12 x mean) is written as 0
+  if (Math.abs(slopeHzPerMin * (len / 60)) < 1e-12 * mean) slopeHzPerMin = 0;
+  return { ratesHz, centresS, cv, slopeHzPerMin };
 }

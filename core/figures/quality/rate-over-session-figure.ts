@@ -34,7 +34,7 @@ export const rateOverSessionFigure: UnitFigure = {
       ],
       layout: {
         ...BASE_LAYOUT,
-        title: { text: `Rate over the session, unit ${u.id} (presence ratio ${pr.toFixed(2)}, drift CV ${Number.isFinite(coarse.cv) ? coarse.cv.toFixed(2) : 'n/a'})` },
+        title: { text: `Rate over the session, unit ${u.id}<br><sup>presence ratio ${pr.toFixed(2)}, rate drift CV ${Number.isFinite(coarse.cv) ? coarse.cv.toFixed(2) : 'n/a'}</sup>` },
         xaxis: { title: { text: 'Time (min)' } },
         yaxis: { title: { text: 'Rate (Hz)' }, rangemode: 'tozero' },
       },

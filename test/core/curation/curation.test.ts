@@ -154,3 +154,13 @@ describe('autosave policy', () => {
     expect(autosaveDue(s, 4010, opts).due).toBe(true);
   });
 });
+
+describe('applyCuration without the labelled verdict column', () => {
+  it('still shows the label in final_V (empty elsewhere)', () => {
+    const t = assembleTable([{ name: 'unit', kind: 'string', values: ['a', 'b'], description: '' }], 2);
+    const s = curationReducer(EMPTY_CURATION, label('b', 'ramp', 'up'));
+    const out = applyCuration(t, s).table;
+    expect(out.columns.map((c) => c.name)).toEqual(['unit', 'final_ramp', 'included', 'note', 'curated', 'curated_by', 'curated_at']);
+    expect(out.columns[1].values).toEqual(['', 'up']);
+  });
+});

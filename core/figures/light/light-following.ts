@@ -1,7 +1,7 @@
-import { lightResponse } from '../light/light-response';
-import { lightSchedule } from '../light/light-schedule';
-import { BASE_LAYOUT, GROUP_COLORS, type FigureSpec } from './theme';
-import type { UnitFigure } from './types';
+import { lightResponse } from '../../light/light-response';
+import { lightSchedule } from '../../light/light-schedule';
+import { BASE_LAYOUT, GROUP_COLORS, type FigureSpec } from '../theme';
+import type { UnitFigure } from '../types';
 
 /**
  * Frequency following: reliability (top) and mean first-spike latency

@@ -1,10 +1,10 @@
-import { lightFreeSpikes } from '../light/light-free-spikes';
-import { lightResponse } from '../light/light-response';
-import { lightSchedule } from '../light/light-schedule';
-import { waveformMatch } from '../light/waveform-match';
-import { formatNumber } from '../table/format-number';
-import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from './theme';
-import type { UnitFigure } from './types';
+import { lightFreeSpikes } from '../../light/light-free-spikes';
+import { lightResponse } from '../../light/light-response';
+import { lightSchedule } from '../../light/light-schedule';
+import { waveformMatch } from '../../light/waveform-match';
+import { formatNumber } from '../../table/format-number';
+import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from '../theme';
+import type { UnitFigure } from '../types';
 
 /**
  * Light-evoked versus spontaneous mean waveform on the compared channels

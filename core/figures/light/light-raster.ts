@@ -1,7 +1,7 @@
-import { lowerBound } from '../align/lower-bound';
-import { lightSchedule } from '../light/light-schedule';
-import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from './theme';
-import type { UnitFigure } from './types';
+import { lowerBound } from '../../align/lower-bound';
+import { lightSchedule } from '../../light/light-schedule';
+import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from '../theme';
+import type { UnitFigure } from '../types';
 
 /** Time shown around each pulse, ms. */
 const BEFORE_MS = 20;

@@ -1,7 +1,7 @@
-import { lightResponse } from '../light/light-response';
-import { lightSchedule } from '../light/light-schedule';
-import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from './theme';
-import type { UnitFigure } from './types';
+import { lightResponse } from '../../light/light-response';
+import { lightSchedule } from '../../light/light-schedule';
+import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from '../theme';
+import type { UnitFigure } from '../types';
 
 /** Histogram bin of the latency figure, ms. */
 const BIN_MS = 0.25;
