@@ -1,9 +1,9 @@
-import { lightFollowingFigure } from '../../core/figures/light-following';
-import { lightLatencyFigure } from '../../core/figures/light-latency';
-import { lightRasterFigure } from '../../core/figures/light-raster';
-import { lightWaveformFigure } from '../../core/figures/light-waveform';
+import { lightFollowingFigure } from '../../core/figures/light/light-following';
+import { lightLatencyFigure } from '../../core/figures/light/light-latency';
+import { lightRasterFigure } from '../../core/figures/light/light-raster';
+import { lightWaveformFigure } from '../../core/figures/light/light-waveform';
 import { indicatorUnitFigure } from '../../core/figures/indicator-unit-figure';
-import { rasterPsthUnitFigure } from '../../core/figures/raster-psth-unit-figure';
+import { rasterPsthUnitFigure } from '../../core/figures/align/raster-psth-unit-figure';
 import { POPULATION_FIGURES, UNIT_FIGURES } from '../../core/figures/registry';
 import type { PopulationFigure, UnitFigure } from '../../core/figures/types';
 
