@@ -5,6 +5,9 @@ import { rateOverSessionFigure } from './quality/rate-over-session-figure';
 import { verdictCountsFigure } from './quality/verdict-counts-figure';
 import { waveformFigure } from './quality/waveform-figure';
 import type { PopulationFigure, UnitFigure } from './types';
+import { rampFitFigure } from './classify/ramp-fit-figure';
+import { jumpAnswersFigure } from './classify/jump-answers-figure';
+import { clusterAveragesFigure } from './classify/cluster-averages-figure';
 
 /**
  * Every figure the app, the exports and the HTML report can draw, in display
@@ -19,10 +22,15 @@ export const UNIT_FIGURES: readonly UnitFigure[] = [
   autocorrelogramFigure,
   isiHistogramFigure,
   waveformFigure,
+  // ramps and jumps
+  rampFitFigure,
+  jumpAnswersFigure,
 ];
 
 export const POPULATION_FIGURES: readonly PopulationFigure[] = [
   // quality and curation
   verdictCountsFigure,
   rateHeatmapFigure,
+  // response clusters
+  clusterAveragesFigure,
 ];
