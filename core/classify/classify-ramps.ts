@@ -56,8 +56,9 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   const nUnits = recording.units.length;
   const units: RampUnitResult[] = [];
   const p = new Float64Array(nUnits);
+  const buffer = new Float64Array(plan.nTrials * centresS.length);
   for (let u = 0; u < nUnits; u++) {
-    const c = rampCounts(recording.units[u].spikeTimes, plan);
+    const c = rampCounts(recording.units[u].spikeTimes, plan, buffer);
     const r = rampUnit(c.counts, plan.nTrials, centresS, plan.binS, params.minTrials, params.exactMaxN, c.exposureS);
     units.push(r);
     p[u] = r.p;
@@ -99,6 +100,7 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   for (const c of labels) {
     const isReference = c === params.condition && plan.nTrials > 0;
     const cp = isReference ? plan : rampPlan(recording, params, c, plan.template ?? undefined);
+    const cBuffer = new Float64Array(cp.nTrials * cp.centresS.length);
     const slope = new Float64Array(nUnits).fill(NaN);
     const diffP = new Float64Array(nUnits).fill(NaN);
     if (cp.nTrials > 0 && cp.centresS.length === centresS.length) {
@@ -106,7 +108,7 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
         const r = isReference
           ? units[u]
           : (() => {
-              const k = rampCounts(recording.units[u].spikeTimes, cp);
+              const k = rampCounts(recording.units[u].spikeTimes, cp, cBuffer);
               return rampUnit(k.counts, cp.nTrials, cp.centresS, cp.binS, Infinity, params.exactMaxN, k.exposureS);
             })();
         slope[u] = r.slopeHzPerS;

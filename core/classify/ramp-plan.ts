@@ -5,6 +5,7 @@ import { warpTemplate } from '../align/warp-template';
 import { warpedPsth } from '../align/warped-psth';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
+import { lowerBound } from '../align/lower-bound';
 import { selectEvents } from './select-events';
 
 /**
@@ -84,10 +85,35 @@ export function rampPlan(recording: Recording, params: Parameters['ramp'], condi
   };
 }
 
-/** Counts (trials x bins) of one unit under a plan, with the real exposure of each bin when warped. */
-export function rampCounts(spikeTimes: Float64Array, plan: RampPlan): { counts: Float64Array; exposureS?: Float64Array } {
+/**
+ * Counts (trials x bins) of one unit under a plan, with the real exposure of
+ * each bin when warped. A buffer of trials x bins may be passed for the
+ * fixed window; the result then lives in it until the next call.
+ */
+export function rampCounts(spikeTimes: Float64Array, plan: RampPlan, buffer?: Float64Array): { counts: Float64Array; exposureS?: Float64Array } {
   if (plan.mode === 'fixed') {
-    return { counts: binCounts(spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS.length) };
+    const nBins = plan.centresS.length;
+    if (!buffer || buffer.length !== plan.times.length * nBins) {
+      return { counts: binCounts(spikeTimes, plan.times, plan.startS, plan.binS, nBins) };
+    }
+    // Same counts as binCounts, written into the caller's buffer (no allocation per unit).
+    buffer.fill(0);
+    const n = spikeTimes.length;
+    for (let k = 0; k < plan.times.length; k++) {
+      const a = plan.times[k];
+      if (!Number.isFinite(a)) continue;
+      const lo = a + plan.startS;
+      const hi = lo + nBins * plan.binS;
+      const row = k * nBins;
+      for (let i = lowerBound(spikeTimes, lo); i < n; i++) {
+        const t = spikeTimes[i];
+        if (t >= hi) break;
+        let j = Math.floor((t - lo) / plan.binS);
+        if (j >= nBins) j = nBins - 1;
+        buffer[row + j]++;
+      }
+    }
+    return { counts: buffer };
   }
   if (!plan.anchors || !plan.template) return { counts: new Float64Array(0) };
   const raster = warpSpikes(spikeTimes, plan.anchors, plan.template, 0, 0);

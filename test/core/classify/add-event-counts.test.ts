@@ -22,3 +22,18 @@ describe('addEventCounts', () => {
     expect(out[0] + out[1] + out[2] + out[3] + out[17] + out[18] + out[19]).toBe(0);
   });
 });
+
+describe('rampCounts with a reused buffer', () => {
+  it('gives the same counts as binCounts, unit after unit', async () => {
+    const { rampCounts, rampPlan } = await import('../../../core/classify');
+    const { DEFAULTS } = await import('../../../core/defaults');
+    const { taskSession } = await import('../../helpers/task-session');
+    const rec = taskSession({ nTrials: 30, units: [{ rateHz: 20, shape: 1 }, { rateHz: 5, shape: 2 }], seed: 9 });
+    const plan = rampPlan(rec, DEFAULTS.ramp, 'standard');
+    const buffer = new Float64Array(plan.nTrials * plan.centresS.length);
+    for (const u of rec.units) {
+      const want = binCounts(u.spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS.length);
+      expect(Array.from(rampCounts(u.spikeTimes, plan, buffer).counts)).toEqual(Array.from(want));
+    }
+  });
+});
