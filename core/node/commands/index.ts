@@ -3,11 +3,17 @@
  * To add one: write core/node/commands/<name>.ts exporting a Command, and
  * add a line here.
  */
+import { curateCommand } from './curate';
+import { exportCommand } from './export';
 import { inspectCommand } from './inspect';
+import { reportCommand } from './report';
 import { runCommand } from './run';
 import type { Command } from './types';
 
 export const COMMANDS: readonly Command[] = [
   runCommand,
   inspectCommand,
+  curateCommand,
+  exportCommand,
+  reportCommand,
 ];
