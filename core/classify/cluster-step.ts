@@ -20,6 +20,7 @@ export const clusterStep: AnalysisStep = {
       ],
       summary: {
         k: c.k,
+        structure: c.structure,
         note: c.note,
         unitsUsed: c.unitsUsed,
         silhouetteByK: c.silhouetteByK,

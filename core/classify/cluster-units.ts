@@ -32,6 +32,12 @@ export interface UnitClusters {
   readonly unitsUsed: number;
   /** Why no clustering was done, or "" when it was. */
   readonly note: string;
+  /**
+   * Strength of the chosen partition by its mean silhouette (Kaufman &
+   * Rousseeuw 1990 guideline, from memory): > 0.7 strong, > 0.5 reasonable,
+   * > 0.25 weak, otherwise none (the clusters then split a continuum or noise).
+   */
+  readonly structure: 'strong' | 'reasonable' | 'weak' | 'none' | '';
 }
 
 /**
@@ -53,6 +59,7 @@ export function clusterUnits(recording: Recording, params: Parameters): UnitClus
   const sil = new Float64Array(n).fill(NaN);
   const empty = (note: string, used = 0): UnitClusters => ({
     cluster, pc1, pc2, silhouette: sil, k: 0, silhouetteByK: [], explainedVariance: [], segments: f.segments, classes: [], unitsUsed: used, note,
+    structure: '',
   });
   if (f.dim < 2) return empty('no events to build responses from');
   const rows: number[][] = [];
@@ -113,5 +120,6 @@ export function clusterUnits(recording: Recording, params: Parameters): UnitClus
   return {
     cluster, pc1, pc2, silhouette: sil, k: best.k, silhouetteByK: byK,
     explainedVariance: ev.slice(0, nComp), segments: f.segments, classes, unitsUsed: nUsed, note: '',
+    structure: best.mean > 0.7 ? 'strong' : best.mean > 0.5 ? 'reasonable' : best.mean > 0.25 ? 'weak' : 'none',
   };
 }

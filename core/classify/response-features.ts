@@ -27,7 +27,8 @@ export interface ResponseFeatures {
  * Trial-averaged responses of every unit, concatenated: the ramp window
  * around the ramp event (reference-condition trials, as the ramp test), then
  * [min(pre, post start), max(post, late end)) around the jump event of each
- * kind. Bins of clusterBinS. Segments with no events are left out.
+ * kind. Bins of cluster.binS. Event types with fewer than cluster.minEvents
+ * events are left out (their averages are mostly noise).
  */
 export function responseFeatures(recording: Recording, params: Parameters): ResponseFeatures {
   const binS = params.cluster.binS;
@@ -35,7 +36,7 @@ export function responseFeatures(recording: Recording, params: Parameters): Resp
   const sources: { times: Float64Array; startS: number; nBins: number }[] = [];
   let offset = 0;
   const add = (name: string, times: Float64Array, startS: number, endS: number) => {
-    if (times.length === 0) return;
+    if (times.length < Math.max(1, params.cluster.minEvents)) return;
     const nBins = Math.max(1, Math.round((endS - startS) / binS));
     segments.push({ name, startS, binS, nBins, offset, nEvents: times.length });
     sources.push({ times, startS, nBins });

@@ -1,9 +1,15 @@
+import { populationResponseFigure } from './align/population-response-figure';
+import { rasterPsthUnitFigure } from './align/raster-psth-unit-figure';
 import { autocorrelogramFigure } from './quality/autocorrelogram-figure';
 import { isiHistogramFigure } from './quality/isi-histogram-figure';
 import { rateHeatmapFigure } from './quality/rate-heatmap-figure';
 import { rateOverSessionFigure } from './quality/rate-over-session-figure';
 import { verdictCountsFigure } from './quality/verdict-counts-figure';
 import { waveformFigure } from './quality/waveform-figure';
+import { lightFollowingFigure } from './light/light-following';
+import { lightLatencyFigure } from './light/light-latency';
+import { lightRasterFigure } from './light/light-raster';
+import { lightWaveformFigure } from './light/light-waveform';
 import type { PopulationFigure, UnitFigure } from './types';
 
 /**
@@ -19,10 +25,19 @@ export const UNIT_FIGURES: readonly UnitFigure[] = [
   autocorrelogramFigure,
   isiHistogramFigure,
   waveformFigure,
+  // light identification
+  lightRasterFigure,
+  lightLatencyFigure,
+  lightFollowingFigure,
+  lightWaveformFigure,
+  // alignment
+  rasterPsthUnitFigure,
 ];
 
 export const POPULATION_FIGURES: readonly PopulationFigure[] = [
   // quality and curation
   verdictCountsFigure,
   rateHeatmapFigure,
+  // alignment
+  populationResponseFigure,
 ];

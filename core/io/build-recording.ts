@@ -375,8 +375,8 @@ function scaleHint(ratio: number): string {
 }
 
 function scaleFix(ratio: number, file: string): string {
-  if (ratio > 3000) return `set "time_unit": "samples" and "sample_rate" for ${file} in session.json`;
-  if (ratio >= 300) return `set "time_unit": "ms" for ${file} in session.json`;
+  if (ratio > 3000) return `give ${file} its time unit in session.json ("time_unit": "samples" in its section, and "sample_rate")`;
+  if (ratio >= 300) return `give ${file} its time unit in session.json ("time_unit": "ms" in its section)`;
   return 'check the time unit and clock of this file';
 }
 

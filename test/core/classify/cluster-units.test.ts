@@ -28,6 +28,7 @@ describe('clusterUnits', () => {
   it('finds the three response types (k by silhouette) with purity >= 0.9', () => {
     expect(c.note).toBe('');
     expect(c.k).toBe(3);
+    expect(['strong', 'reasonable']).toContain(c.structure);
     expect(c.unitsUsed).toBe(60);
     let agree = 0;
     for (let k = 1; k <= c.k; k++) {

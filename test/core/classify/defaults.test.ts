@@ -13,6 +13,6 @@ describe('classification defaults', () => {
     });
   });
   it('cluster', () => {
-    expect(DEFAULTS.cluster).toEqual({ kMin: 2, kMax: 6, restarts: 10, seed: 1, components: 5, binS: 0.1, minUnits: 8 });
+    expect(DEFAULTS.cluster).toEqual({ kMin: 2, kMax: 6, restarts: 10, seed: 1, components: 5, binS: 0.1, minUnits: 8, minEvents: 10 });
   });
 });
