@@ -4,9 +4,12 @@
  * add a line here.
  */
 import { loadSession } from '../load-session';
+import { curateCommand } from './curate';
+import { exportCommand } from './export';
 import { inspectCommand } from './inspect';
 import { createPredictCommand } from './predict';
 import { createPsthCommand } from './psth';
+import { reportCommand } from './report';
 import { runCommand } from './run';
 import type { Command } from './types';
 
@@ -16,4 +19,8 @@ export const COMMANDS: readonly Command[] = [
   // alignment and indicator kernels
   createPsthCommand((path) => loadSession(path)),
   createPredictCommand((path) => loadSession(path)),
+  // curation, exports and report
+  curateCommand,
+  exportCommand,
+  reportCommand,
 ];
