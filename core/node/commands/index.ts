@@ -11,6 +11,7 @@ import { createPredictCommand } from './predict';
 import { createPsthCommand } from './psth';
 import { reportCommand } from './report';
 import { runCommand } from './run';
+import { batchCommand } from './batch';
 import type { Command } from './types';
 
 export const COMMANDS: readonly Command[] = [
@@ -23,4 +24,6 @@ export const COMMANDS: readonly Command[] = [
   curateCommand,
   exportCommand,
   reportCommand,
+  // many sessions
+  batchCommand,
 ];
