@@ -6,7 +6,8 @@
  * unit table and read it back. Screenshots of each screen go to
  * test-artifacts/e2e/.
  */
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoDir } from '../../renderer/vite.config';
@@ -168,5 +169,22 @@ describe.sequential('workbench in a real browser', () => {
     expect(head).toContain('final_tag');
     expect(head).toContain('included');
     expect(wb.pageErrors).toEqual([]);
+  }, LONG);
+
+  it('shows the importer's message, not a stack trace, for an unreadable session folder', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tagbench-bad-session-'));
+    writeFileSync(join(dir, 'spikes.csv'), 'unit,time\n1,0.5\n1,abc\n');
+    await wb.page.getByRole('button', { name: 'Start' }).click();
+    const [chooser] = await Promise.all([wb.page.waitForEvent('filechooser'), wb.page.getByRole('button', { name: 'Open session folder...' }).click()]);
+    await chooser.setFiles(dir);
+    const screen = wb.page.getByRole('alert');
+    await screen.waitFor();
+    const text = await screen.innerText();
+    expect(text).toMatch(/^Could not open /);
+    expect(text).toMatch(/spikes\.csv, row 3, column "time"/);
+    expect(text).not.toMatch(/\n\s+at /);
+    await shot('9-error-screen');
+    await wb.page.getByRole('button', { name: 'Back to Start' }).click();
+    await wb.page.getByTestId('open-demo').waitFor();
   }, LONG);
 });
