@@ -1,9 +1,7 @@
-import { lightFollowingFigure } from '../../core/figures/light-following';
-import { lightLatencyFigure } from '../../core/figures/light-latency';
-import { lightRasterFigure } from '../../core/figures/light-raster';
-import { lightWaveformFigure } from '../../core/figures/light-waveform';
+import { clusterAveragesFigure } from '../../core/figures/cluster-averages-figure';
 import { indicatorUnitFigure } from '../../core/figures/indicator-unit-figure';
-import { rasterPsthUnitFigure } from '../../core/figures/raster-psth-unit-figure';
+import { jumpAnswersFigure } from '../../core/figures/jump-answers-figure';
+import { rampFitFigure } from '../../core/figures/ramp-fit-figure';
 import { POPULATION_FIGURES, UNIT_FIGURES } from '../../core/figures/registry';
 import type { PopulationFigure, UnitFigure } from '../../core/figures/types';
 
@@ -14,19 +12,11 @@ function uniqueById<T extends { id: string }>(list: readonly T[]): T[] {
 }
 
 /**
- * The figures of the Unit page, in display order: light response, event
- * response, the predicted indicator trace, then every figure of core's registry (quality and what other
- * analyses register). The Unit page places each in its section by id.
+ * The figures of the Unit page: every figure of core's registry, then the
+ * unit figures not (yet) registered there (ramp fit, jump answers, the
+ * predicted indicator trace). The Unit page places each in its section by id.
  */
-export const UNIT_FIGURE_LIST: readonly UnitFigure[] = uniqueById([
-  lightRasterFigure,
-  lightLatencyFigure,
-  lightFollowingFigure,
-  lightWaveformFigure,
-  rasterPsthUnitFigure,
-  indicatorUnitFigure,
-  ...UNIT_FIGURES,
-]);
+export const UNIT_FIGURE_LIST: readonly UnitFigure[] = uniqueById([...UNIT_FIGURES, rampFitFigure, jumpAnswersFigure, indicatorUnitFigure]);
 
-/** The figures of the Population screen: core's registry. */
-export const POPULATION_FIGURE_LIST: readonly PopulationFigure[] = uniqueById([...POPULATION_FIGURES]);
+/** The figures of the Population screen: core's registry, then the cluster averages. */
+export const POPULATION_FIGURE_LIST: readonly PopulationFigure[] = uniqueById([...POPULATION_FIGURES, clusterAveragesFigure]);

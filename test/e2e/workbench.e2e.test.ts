@@ -171,7 +171,7 @@ describe.sequential('workbench in a real browser', () => {
     expect(wb.pageErrors).toEqual([]);
   }, LONG);
 
-  it('shows the importer's message, not a stack trace, for an unreadable session folder', async () => {
+  it('shows the importer message, not a stack trace, for an unreadable session folder', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'tagbench-bad-session-'));
     writeFileSync(join(dir, 'spikes.csv'), 'unit,time\n1,0.5\n1,abc\n');
     await wb.page.getByRole('button', { name: 'Start' }).click();
