@@ -64,5 +64,6 @@ export default defineConfig({
     target: 'es2022',
     chunkSizeWarningLimit: 6000,
     reportCompressedSize: false,
+    rolldownOptions: { checks: { pluginTimings: false } },
   },
 });
