@@ -14,7 +14,7 @@ import { existsSync, readFileSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { loadNwbSession } from '../core/node/nwb/load-nwb-session';
+import { loadNwbSession } from '../core/node/load-nwb-session';
 import { openHdf5File } from '../core/node/nwb/open-hdf5-file';
 
 const here = dirname(fileURLToPath(import.meta.url));

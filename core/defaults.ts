@@ -69,6 +69,13 @@ export const DEFAULTS = {
     trustNullSimulations: 200,
     /** Simulated responders per reliability step of the power search. */
     trustPowerSimulations: 40,
+    /**
+     * Budget of the trust simulation per session, in pulse evaluations: when cells x pulses
+     * x trustNullSimulations exceeds it, each cell gets fewer null units (at least 50) and
+     * fewer responders per power step (at least 10, a fifth of the null units), so a
+     * 1,000-unit, 10,000-pulse session stays within seconds. run.json reports the counts used.
+     */
+    trustBudget: 10000000,
     /** Latency and jitter of the simulated responders of the power search, ms (common practice for direct answers). */
     trustPowerLatencyMs: 4,
     trustPowerJitterMs: 1,

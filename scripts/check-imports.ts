@@ -26,6 +26,7 @@ type Area = 'core' | 'core/node' | 'electron' | 'electron/common' | 'renderer';
 
 function areaOf(rel: string): Area | null {
   const p = rel.split(sep).join('/');
+  if (p === 'renderer/vite.config.ts') return null; // build tooling: runs in Node, never in the page
   if (p.startsWith('core/node/')) return 'core/node';
   if (p.startsWith('core/')) return 'core';
   if (p.startsWith('electron/common/')) return 'electron/common';

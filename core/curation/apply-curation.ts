@@ -1,7 +1,7 @@
 import { assembleTable } from '../table/assemble-table';
 import type { Column, UnitTable } from '../table/types';
 import type { CurationState } from './types';
-import { verdictWords } from './verdict-words';
+import { verdictColumns } from './verdict-columns';
 
 /** Curation columns appended after every computed column, in this order. */
 export const CURATION_COLUMNS = ['included', 'note', 'curated', 'curated_by', 'curated_at'] as const;
@@ -13,7 +13,8 @@ export const CURATION_COLUMNS = ['included', 'note', 'curated', 'curated_by', 'c
  * computed value; then `included` ("yes"/"no": excluded units stay in the
  * table, marked), `note`, `curated` (which decisions a person made, e.g.
  * "tag;include"), `curated_by` and `curated_at` (the latest decision).
- * Computed columns are passed through untouched.
+ * Computed columns are passed through untouched. A label for a verdict
+ * column the table lacks still gets its final_V column (empty where unlabelled).
  *
  * The `final_` prefix keeps these columns out of the jump_K column pattern of
  * the headless contract. Curation of units absent from the table is not
@@ -27,10 +28,16 @@ export function applyCuration(table: UnitTable, curation: CurationState): { tabl
   const orphans = Object.keys(curation.units).filter((u) => !present.has(u)).sort();
   const n = table.rowCount;
   const added: Column[] = [];
-  for (const c of table.columns) {
-    if (c.kind !== 'string' || !verdictWords(c.name)) continue;
+  for (const c of verdictColumns(table)) {
     const vals = ids.map((id, r) => curation.units[id]?.labels[c.name]?.value ?? c.values[r]);
     added.push({ name: `final_${c.name}`, kind: 'string', values: vals, description: `Final ${c.name}: the person's label where set, else the computed ${c.name}` });
+  }
+  // Labels of verdict columns this table lacks (e.g. tag without pulses) still show, never vanish.
+  const have = new Set(table.columns.map((c) => c.name));
+  const extra = new Set<string>();
+  for (const id of ids) for (const col of Object.keys(curation.units[id]?.labels ?? {})) if (!have.has(col)) extra.add(col);
+  for (const col of [...extra].sort()) {
+    added.push({ name: `final_${col}`, kind: 'string', values: ids.map((id) => curation.units[id]?.labels[col]?.value ?? ''), description: `Final ${col}: the person's label (no computed ${col} in this run)` });
   }
   const included: string[] = [];
   const notes: string[] = [];

@@ -11,3 +11,5 @@ export { serializeSessionFile } from './serialize-session-file';
 export { SESSION_FORMAT, SESSION_SCHEMA_VERSION, type SessionFile } from './session-file';
 export { validateSessionFile } from './validate-session-file';
 export { verdictWords } from './verdict-words';
+export { newSessionFile } from './new-session-file';
+export { verdictColumns } from './verdict-columns';

@@ -1,9 +1,16 @@
+import { populationResponseFigure } from './align/population-response-figure';
+import { rasterPsthUnitFigure } from './align/raster-psth-unit-figure';
 import { autocorrelogramFigure } from './quality/autocorrelogram-figure';
 import { isiHistogramFigure } from './quality/isi-histogram-figure';
 import { rateHeatmapFigure } from './quality/rate-heatmap-figure';
 import { rateOverSessionFigure } from './quality/rate-over-session-figure';
 import { verdictCountsFigure } from './quality/verdict-counts-figure';
 import { waveformFigure } from './quality/waveform-figure';
+import { lightFollowingFigure } from './light/light-following';
+import { lightLatencyFigure } from './light/light-latency';
+import { lightRasterFigure } from './light/light-raster';
+import { lightWaveformFigure } from './light/light-waveform';
+import { indicatorUnitFigure } from './indicator-unit-figure';
 import type { PopulationFigure, UnitFigure } from './types';
 import { rampFitFigure } from './classify/ramp-fit-figure';
 import { jumpAnswersFigure } from './classify/jump-answers-figure';
@@ -17,20 +24,31 @@ import { clusterAveragesFigure } from './classify/cluster-averages-figure';
  * (test/core/figures/registry.test.ts checks).
  */
 export const UNIT_FIGURES: readonly UnitFigure[] = [
+  // light identification
+  lightRasterFigure,
+  lightLatencyFigure,
+  lightFollowingFigure,
+  lightWaveformFigure,
+  // event response
+  rasterPsthUnitFigure,
+  // ramps and jumps
+  rampFitFigure,
+  jumpAnswersFigure,
+  // indicator model
+  indicatorUnitFigure,
   // quality
   rateOverSessionFigure,
   autocorrelogramFigure,
   isiHistogramFigure,
   waveformFigure,
-  // ramps and jumps
-  rampFitFigure,
-  jumpAnswersFigure,
 ];
 
 export const POPULATION_FIGURES: readonly PopulationFigure[] = [
   // quality and curation
   verdictCountsFigure,
   rateHeatmapFigure,
+  // event response
+  populationResponseFigure,
   // response clusters
   clusterAveragesFigure,
 ];

@@ -15,7 +15,7 @@ import { npyHeader } from './npy-header';
  * BigInt64Array <i8. `shape` defaults to [length]; its product must equal
  * the length. On a big-endian host the data bytes are swapped.
  */
-export type NpyArray =
+export type NpyWritable =
   | Float64Array
   | Float32Array
   | Int32Array
@@ -26,7 +26,7 @@ export type NpyArray =
   | Uint8Array
   | BigInt64Array;
 
-export function encodeNpy(data: NpyArray, shape: readonly number[] = [data.length]): Uint8Array {
+export function encodeNpy(data: NpyWritable, shape: readonly number[] = [data.length]): Uint8Array {
   const header = npyHeader(npyDescr(data), shape, data.length);
   const out = new Uint8Array(header.length + data.byteLength);
   out.set(header, 0);
@@ -36,7 +36,7 @@ export function encodeNpy(data: NpyArray, shape: readonly number[] = [data.lengt
 }
 
 /** The dtype string of a typed array, e.g. "<f8". */
-function npyDescr(data: NpyArray): string {
+function npyDescr(data: NpyWritable): string {
   if (data instanceof Float64Array) return '<f8';
   if (data instanceof Float32Array) return '<f4';
   if (data instanceof Int32Array) return '<i4';

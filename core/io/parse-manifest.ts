@@ -79,7 +79,7 @@ export function parseManifest(text: string, file = 'session.json'): SessionManif
     throw new InputError({ file, ...(row ? { row } : {}), problem: `not valid JSON (${msg.replace(/^.*?:\s*/, '')})`, fix: 'check commas, quotes and braces (a JSON validator shows the spot)' });
   }
   const err = (key: string, problem: string, value?: unknown, fix?: string): never => {
-    throw new InputError({ file, column: key, ...(value !== undefined ? { value: JSON.stringify(value) } : {}), problem, ...(fix ? { fix } : {}) });
+    throw new InputError({ file, column: key, ...(value !== undefined ? { value: typeof value === 'string' ? value : JSON.stringify(value) } : {}), problem, ...(fix ? { fix } : {}) });
   };
   const obj = (v: unknown, key: string): Record<string, unknown> => {
     if (typeof v !== 'object' || v === null || Array.isArray(v)) err(key, 'expected a JSON object', v);

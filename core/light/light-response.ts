@@ -1,4 +1,5 @@
 import { lowerBound } from '../align/lower-bound';
+import { gallopBound } from './gallop-bound';
 import { poissonSf } from '../stats/distributions/poisson';
 import type { Parameters } from '../defaults';
 import type { LightSchedule } from './light-schedule';
@@ -137,7 +138,7 @@ export function lightResponse(
   for (let i = 0; i < n; i++) {
     const lo = sch.onset[i] + ws;
     const hi = lo + wn;
-    idx = lowerBound(spikeTimes, lo, idx);
+    idx = gallopBound(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       rel[i] = r;
@@ -170,7 +171,7 @@ export function lightResponse(
     if (!Number.isFinite(lo) || lo < sch.onset[i] + sch.windowEndS) continue;
     offsetPulses++;
     const hi = lo + offsetWindowS;
-    idx = lowerBound(spikeTimes, lo, 0);
+    idx = gallopBound(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       offsetAnswered++;
@@ -201,6 +202,7 @@ export function lightResponse(
     counts.fill(0, 0, size);
     let baseSpikes = 0;
     let baseAnswered = 0;
+    let hint = 0;
     for (let k = 0; k < m; k++) {
       const i = sch.saltPulses[k];
       const r = rel[i];
@@ -212,7 +214,8 @@ export function lightResponse(
       const start = sch.anchor[i] - J * wn;
       const end = sch.anchor[i];
       let last = -1;
-      for (let j = lowerBound(spikeTimes, start); j < ns; j++) {
+      hint = gallopBound(spikeTimes, start, hint);
+      for (let j = hint; j < ns; j++) {
         const t = spikeTimes[j];
         if (t >= end) break;
         baseSpikes++;

@@ -25,7 +25,7 @@ function checkParameters(p: Parameters['light']): void {
   for (const k of ['alphaSalt', 'alphaCount', 'trustPower', 'saltMinPulseFraction'] as const) if (!(p[k] > 0 && p[k] <= 1)) bad(k, p[k], 'must lie in (0, 1]');
   if (!(p.artefactJitterMs > 0)) bad('artefactJitterMs', p.artefactJitterMs, 'must be > 0');
   if (!(p.offsetWindowMs > 0)) bad('offsetWindowMs', p.offsetWindowMs, 'must be > 0');
-  for (const k of ['trustNullSimulations', 'trustPowerSimulations', 'waveformChannels', 'waveformMaxSpikes', 'waveformMinSpikes', 'saltMinWindows'] as const) {
+  for (const k of ['trustNullSimulations', 'trustPowerSimulations', 'trustBudget', 'waveformChannels', 'waveformMaxSpikes', 'waveformMinSpikes', 'saltMinWindows'] as const) {
     if (!(Number.isInteger(p[k]) && p[k] >= 0)) bad(k, p[k], 'must be a whole number >= 0');
   }
 }
@@ -85,6 +85,10 @@ export const lightStep: AnalysisStep = {
     const fLat = Array.from({ length: nf }, num);
 
     const cells = new Map<string, { trust: RuleTrust; units: number }>();
+    const cellInput = new Map<string, [number, number]>();
+    const cellOf: string[] = new Array(nU).fill('');
+    let nullSims = 0;
+    let powerSims = 0;
     let badChannels = 0;
     let waveformProblems = 0;
     if (sch.n > 0) {
@@ -134,11 +138,17 @@ export const lightStep: AnalysisStep = {
         }
         const cell = trustCell(r.baselineHz, free.isiCv);
         const key = `${cell.rateHz}|${cell.cv}`;
-        let c = cells.get(key);
-        if (!c) {
-          c = { trust: ruleTrust(sch, intervals, r.baselineHz, free.isiCv, p, scratch), units: 0 };
-          cells.set(key, c);
-        }
+        cellOf[u] = key;
+        if (!cellInput.has(key)) cellInput.set(key, [r.baselineHz, free.isiCv]);
+      }
+      // Trust simulation, one per (rate, CV) cell, within the session's budget.
+      const perCell = p.trustBudget / Math.max(1, cellInput.size * sch.n);
+      nullSims = Math.min(p.trustNullSimulations, Math.max(50, Math.floor(perCell)));
+      powerSims = Math.min(p.trustPowerSimulations, Math.max(10, Math.floor(nullSims / 5)));
+      const tp = { ...p, trustNullSimulations: nullSims, trustPowerSimulations: powerSims };
+      for (const [key, [rate, cv]] of cellInput) cells.set(key, { trust: ruleTrust(sch, intervals, rate, cv, tp, scratch), units: 0 });
+      for (let u = 0; u < nU; u++) {
+        const c = cells.get(cellOf[u])!;
         c.units++;
         falseRate[u] = c.trust.falseRate;
         minRel[u] = c.trust.minDetectableReliability;
@@ -216,8 +226,9 @@ export const lightStep: AnalysisStep = {
         untagged: tag.filter((t) => t === 'untagged').length,
       },
       trust: {
-        nullSimulationsPerCell: p.trustNullSimulations,
-        powerSimulationsPerStep: p.trustPowerSimulations,
+        nullSimulationsPerCell: nullSims,
+        powerSimulationsPerStep: powerSims,
+        budget: p.trustBudget,
         responderModel: `one added spike per pulse with probability R at ${p.trustPowerLatencyMs} +- ${p.trustPowerJitterMs} ms (Gaussian); power ${p.trustPower}`,
         expectedFalseTagged: counted ? expected : null,
         meanFalseRate: counted ? expected / counted : null,

@@ -10,8 +10,8 @@ export interface SessionFile {
 }
 
 export interface SessionFileOptions {
-  /** `csv`: spikes.csv; `npy`: spikes.npy (float64 s) + units.npy (int32 unit id per spike); `both`. Default csv. */
-  readonly spikes?: 'csv' | 'npy' | 'both';
+  /** `csv`: spikes.csv; `npy`: spikes.npy (float64 s) + units.npy (int32 unit id per spike); `both`; `none` (a streaming writer writes them). Default csv. */
+  readonly spikes?: 'csv' | 'npy' | 'both' | 'none';
   /** Write unit_info.csv and waveforms.npy (default true). */
   readonly unitInfo?: boolean;
   /** Digits after the point for times in CSV files (default 6). */
@@ -43,7 +43,7 @@ export function sessionFiles(sim: SimulatedSession, options: SessionFileOptions 
   const withInfo = options.unitInfo ?? true;
   const files: SessionFile[] = [];
   const ids = rec.units.map((u) => u.id);
-  const order = spikeTimeOrder(rec.units);
+  const order = mode === 'none' ? { unit: new Int32Array(0), time: new Float64Array(0) } : spikeTimeOrder(rec.units);
   if (mode === 'csv' || mode === 'both') {
     files.push({ name: 'spikes.csv', data: [...spikesCsvChunks(ids, order.unit, order.time, 100_000, dec)].join('') });
   }
@@ -93,7 +93,7 @@ export function sessionFiles(sim: SimulatedSession, options: SessionFileOptions 
     for (const u of rec.units) rows.push(`${u.id},${u.meta.channel ?? ''},${u.meta.depth_um ?? ''}`);
     files.push({ name: 'unit_info.csv', data: rows.join('\n') + '\n' });
     files.push({ name: 'waveforms.npy', data: encodeNpy(sim.waveforms, [rec.units.length, sim.spec.waveformSamples]) });
-    manifest.waveforms = { file: 'waveforms.npy', sample_rate: sim.spec.waveformSampleRateHz, unit: 'uV' };
+    manifest.waveforms = { file: 'waveforms.npy', sample_rate: sim.spec.waveformSampleRateHz };
   }
   files.push({ name: 'session.json', data: JSON.stringify(manifest, null, 2) + '\n' });
   return files;

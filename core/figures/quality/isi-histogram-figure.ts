@@ -27,7 +27,7 @@ export const isiHistogramFigure: UnitFigure = {
       ],
       layout: {
         ...BASE_LAYOUT,
-        title: { text: `ISI histogram, unit ${u.id} (${beyond} ISIs > ${nBins * binMs} ms not shown)` },
+        title: { text: `ISI histogram, unit ${u.id}<br><sup>${beyond} of ${u.spikeTimes.length - 1} ISIs are longer than ${nBins * binMs} ms (not shown)</sup>` },
         showlegend: false,
         bargap: 0,
         xaxis: { title: { text: 'Inter-spike interval (ms)' }, range: [0, nBins * binMs] },

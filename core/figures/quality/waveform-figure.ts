@@ -18,7 +18,7 @@ export const waveformFigure: UnitFigure = {
       layout: {
         ...BASE_LAYOUT,
         showlegend: false,
-        title: { text: `Mean waveform, unit ${u.id} (trough-to-peak ${f(s.troughToPeakMs)}, half-width ${f(s.halfWidthMs)})` },
+        title: { text: `Mean waveform, unit ${u.id}<br><sup>trough-to-peak ${f(s.troughToPeakMs)}, half-width ${f(s.halfWidthMs)}</sup>` },
         xaxis: { title: { text: 'Time (ms)' } },
         yaxis: { title: { text: 'Amplitude (µV)' } },
       },

@@ -11,8 +11,9 @@
  *     "trials": "/intervals/trials" | false | {"table", "condition_column"},
  *     "pulses": false
  *             | {"table": "/intervals/laser_pulses", "power_column", "power_unit": "mW"|"W",
- *                "train_column", "frequency_column"}
- *             | {"series": "/stimulus/presentation/blue_light", "threshold_mw"},
+ *                "train_column", "frequency_column", "train_max_ipi_s"}
+ *             | {"series": "/stimulus/presentation/blue_light", "threshold_mw" |
+ *                ("high_threshold_mw" + "low_threshold_mw"), "min_width_ms", "train_max_ipi_s"},
  *     "events": [ {"table", "label" | "label_column", "time_column", "kind_column", "trial_column"},
  *                 {"series", "label", "threshold"},
  *                 {"trials_column": "reward_time", "label": "reward"} ],
@@ -46,6 +47,8 @@ export type NwbEventSource = NwbTableEvents | NwbSeriesEvents | NwbTrialColumnEv
 
 export interface NwbPulseTable {
   readonly table: string;
+  /** Pulses closer than this belong to one train (s); default: the builder's. */
+  readonly trainMaxIpiS?: number;
   readonly powerColumn?: string;
   readonly powerUnit?: 'mW' | 'W';
   readonly trainColumn?: string;
@@ -53,7 +56,12 @@ export interface NwbPulseTable {
 }
 export interface NwbPulseSeries {
   readonly series: string;
-  readonly thresholdMw?: number;
+  /** Levels switching a pulse on and off, mW (both or neither; default 60 % / 40 % of the trace's range). */
+  readonly highThresholdMw?: number;
+  readonly lowThresholdMw?: number;
+  /** Shortest pulse kept, ms (default 0.5, as for a folder's laser trace). */
+  readonly minWidthMs?: number;
+  readonly trainMaxIpiS?: number;
 }
 
 export interface NwbManifest {
@@ -92,7 +100,7 @@ export function parseNwbManifest(section: unknown, manifestFile = 'session.json'
       const p = ctx.object(o.pulses, 'nwb.pulses');
       if (p.table !== undefined && p.series !== undefined) ctx.fail('nwb.pulses', 'give either "table" or "series", not both');
       if (p.table !== undefined) {
-        ctx.only(p, 'nwb.pulses', ['table', 'power_column', 'power_unit', 'train_column', 'frequency_column']);
+        ctx.only(p, 'nwb.pulses', ['table', 'power_column', 'power_unit', 'train_column', 'frequency_column', 'train_max_ipi_s']);
         const unit = p.power_unit === undefined ? undefined : ctx.text(p.power_unit, 'nwb.pulses.power_unit');
         if (unit !== undefined && unit !== 'mW' && unit !== 'W') ctx.fail('nwb.pulses.power_unit', 'must be "mW" or "W"', unit);
         m.pulses = {
@@ -101,12 +109,23 @@ export function parseNwbManifest(section: unknown, manifestFile = 'session.json'
           ...(unit !== undefined ? { powerUnit: unit as 'mW' | 'W' } : {}),
           ...(p.train_column !== undefined ? { trainColumn: ctx.text(p.train_column, 'nwb.pulses.train_column') } : {}),
           ...(p.frequency_column !== undefined ? { frequencyColumn: ctx.text(p.frequency_column, 'nwb.pulses.frequency_column') } : {}),
+          ...(p.train_max_ipi_s !== undefined ? { trainMaxIpiS: ctx.positive(p.train_max_ipi_s, 'nwb.pulses.train_max_ipi_s') } : {}),
         };
       } else if (p.series !== undefined) {
-        ctx.only(p, 'nwb.pulses', ['series', 'threshold_mw']);
+        ctx.only(p, 'nwb.pulses', ['series', 'threshold_mw', 'high_threshold_mw', 'low_threshold_mw', 'min_width_ms', 'train_max_ipi_s']);
+        let high = p.high_threshold_mw === undefined ? undefined : ctx.positive(p.high_threshold_mw, 'nwb.pulses.high_threshold_mw');
+        let low = p.low_threshold_mw === undefined ? undefined : ctx.positive(p.low_threshold_mw, 'nwb.pulses.low_threshold_mw');
+        if (p.threshold_mw !== undefined) {
+          if (high !== undefined || low !== undefined) ctx.fail('nwb.pulses.threshold_mw', 'give threshold_mw, or high_threshold_mw and low_threshold_mw, not both');
+          high = low = ctx.positive(p.threshold_mw, 'nwb.pulses.threshold_mw');
+        }
+        if ((high === undefined) !== (low === undefined)) ctx.fail('nwb.pulses', 'give both high_threshold_mw and low_threshold_mw, or neither (automatic levels)');
+        if (high !== undefined && low! > high) ctx.fail('nwb.pulses.low_threshold_mw', 'must not exceed high_threshold_mw', String(low));
         m.pulses = {
           series: ctx.path(p.series, 'nwb.pulses.series'),
-          ...(p.threshold_mw !== undefined ? { thresholdMw: ctx.positive(p.threshold_mw, 'nwb.pulses.threshold_mw') } : {}),
+          ...(high !== undefined ? { highThresholdMw: high, lowThresholdMw: low } : {}),
+          ...(p.min_width_ms !== undefined ? { minWidthMs: ctx.positive(p.min_width_ms, 'nwb.pulses.min_width_ms') } : {}),
+          ...(p.train_max_ipi_s !== undefined ? { trainMaxIpiS: ctx.positive(p.train_max_ipi_s, 'nwb.pulses.train_max_ipi_s') } : {}),
         };
       } else ctx.fail('nwb.pulses', 'needs "table" (an interval table of pulses) or "series" (a laser power series)');
     }

@@ -1,57 +1,81 @@
 /**
- * Laser pulses from a sampled power trace by threshold crossing (used for
- * NWB OptogeneticSeries and for TTL-like event series).
+ * Pulses (or TTL-like events) from a sampled NWB series by threshold
+ * crossing, through the project's one laser-trace detector
+ * (core/io/detect-laser-pulses.ts: hysteresis between a high and a low level,
+ * minimum width, default levels 60 % / 40 % of the way from the trace's
+ * minimum to its maximum).
  *
- * A pulse starts at the first sample >= threshold after a sample below it (or
- * at the first sample when the trace starts high) and ends at the first later
- * sample below threshold; duration = end time - start time (the trace's
- * sample grid limits its precision to one sample interval); power = the
- * largest value inside the pulse. A pulse still on at the last sample ends
- * there. Default threshold: half the trace's maximum (common practice for
- * square pulses); a trace that never rises above 0 has no pulses.
+ * Regularly sampled series (starting_time + rate) go to the detector as they
+ * are, so an NWB laser trace gives exactly what the same trace gives in a
+ * session folder. Series with timestamps (possibly irregular, e.g. a power
+ * value stored at each change) are detected on the sample index and mapped
+ * back to their timestamps, each sample holding its value until the next:
+ * onset = timestamp of the first sample on, end = timestamp of the first
+ * sample off (a pulse still on at the last sample ends there). The minimum
+ * width then applies in seconds.
  *
- * Units: times in s; values and threshold in the trace's unit (mW for laser
- * power). NaN samples count as below threshold.
- *
- * NOTE for the lead: the import area owns the laser-trace pulse detector in
- * core/io/; when it lands on main, this adapter calls it instead.
+ * Power of each pulse: the largest value inside it (trace units; mW for laser
+ * power). Units: times in s.
  */
+import { detectLaserPulses } from '../detect-laser-pulses';
+
+export interface SeriesPulseOptions {
+  /** Sampling rate, Hz, for regularly sampled series; absent for timestamps. */
+  readonly rateHz?: number;
+  /** Level that switches a pulse on (trace units); with lowThreshold, or both absent. */
+  readonly highThreshold?: number;
+  readonly lowThreshold?: number;
+  /** Shortest pulse kept, s (default 0.0005, as the detector's). */
+  readonly minWidthS?: number;
+}
+
 export interface SeriesPulses {
   readonly onset: Float64Array;
   readonly duration: Float64Array;
-  readonly powerMw: Float64Array;
-  readonly thresholdMw: number;
+  /** Largest value inside each pulse. */
+  readonly peak: Float64Array;
+  readonly highThreshold: number;
+  readonly dropped: number;
+  readonly unterminated: number;
 }
 
-export function pulsesFromSeries(times: Float64Array, values: Float64Array, threshold?: number): SeriesPulses {
-  let max = -Infinity;
-  for (let i = 0; i < values.length; i++) if (values[i] > max) max = values[i];
-  const thr = threshold ?? (max > 0 ? max / 2 : Infinity);
+export function pulsesFromSeries(times: Float64Array, values: Float64Array, o: SeriesPulseOptions = {}): SeriesPulses {
+  const minWidthS = o.minWidthS ?? 0.0005;
+  const levels = o.highThreshold !== undefined ? { highThreshold: o.highThreshold, lowThreshold: o.lowThreshold ?? o.highThreshold } : {};
+  const peakIn = (a: number, b: number) => {
+    let m = -Infinity;
+    for (let i = a; i < b; i++) if (values[i] > m) m = values[i];
+    return m;
+  };
+  if (o.rateHz !== undefined && times.length > 0) {
+    const t0 = times[0];
+    const d = detectLaserPulses(values, { sampleRateHz: o.rateHz, startS: t0, minWidthS, ...levels });
+    const peak = new Float64Array(d.onsetS.length);
+    for (let k = 0; k < peak.length; k++) {
+      const a = Math.round((d.onsetS[k] - t0) * o.rateHz);
+      peak[k] = peakIn(a, Math.min(values.length, a + Math.round(d.durationS[k] * o.rateHz)));
+    }
+    return { onset: d.onsetS, duration: d.durationS, peak, highThreshold: d.highThreshold, dropped: d.dropped, unterminated: d.unterminated };
+  }
+  // Timestamps: detect on the sample index (rate 1, no width limit), then map to times.
+  const d = detectLaserPulses(values, { sampleRateHz: 1, startS: 0, minWidthS: 0, ...levels });
   const onset: number[] = [];
   const duration: number[] = [];
-  const power: number[] = [];
-  let inPulse = false;
-  let start = 0;
-  let peak = 0;
-  for (let i = 0; i < values.length; i++) {
-    const high = values[i] >= thr;
-    if (high && !inPulse) {
-      inPulse = true;
-      start = times[i];
-      peak = values[i];
-    } else if (high) {
-      if (values[i] > peak) peak = values[i];
-    } else if (inPulse) {
-      inPulse = false;
-      onset.push(start);
-      duration.push(times[i] - start);
-      power.push(peak);
+  const peak: number[] = [];
+  let dropped = d.dropped;
+  const n = times.length;
+  for (let k = 0; k < d.onsetS.length; k++) {
+    const a = Math.round(d.onsetS[k]);
+    const b = a + Math.round(d.durationS[k]);
+    const on = times[a];
+    const end = b < n ? times[b] : times[n - 1];
+    if (end - on + 1e-12 < minWidthS && b < n) {
+      dropped++;
+      continue;
     }
+    onset.push(on);
+    duration.push(end - on);
+    peak.push(peakIn(a, Math.min(n, b)));
   }
-  if (inPulse) {
-    onset.push(start);
-    duration.push(times[times.length - 1] - start);
-    power.push(peak);
-  }
-  return { onset: Float64Array.from(onset), duration: Float64Array.from(duration), powerMw: Float64Array.from(power), thresholdMw: thr };
+  return { onset: Float64Array.from(onset), duration: Float64Array.from(duration), peak: Float64Array.from(peak), highThreshold: d.highThreshold, dropped, unterminated: d.unterminated };
 }

@@ -15,7 +15,9 @@
  * start_time, power from `power` (mW; W when the column's unit attribute or
  * the manifest says so), train and frequency from `train` / `frequency` when
  * present (otherwise inferred by the builder). Pulses from an
- * OptogeneticSeries: see pulsesFromSeries. The stimulus site (description,
+ * OptogeneticSeries (watts, shown in mW): the project's laser-trace detector
+ * through pulsesFromSeries, with the same options and warnings as a session
+ * folder's laser trace; each pulse's power is the largest value inside it. The stimulus site (description,
  * location, excitation wavelength) is kept in Recording.meta.
  *
  * Events: see planNwbRoles. Empty (NaN) cells of a trials `<label>_time`
@@ -27,7 +29,7 @@ import type { Recording, Scalar, Warning } from '../../model/types';
 import { buildRecording, type EventColumns, type PulseColumns, type RecordingTables, type TrialColumns, type UnitInfoColumns, type WaveformColumns } from '../build-recording';
 import type { Hdf5File } from './hdf5-access';
 import { listNwbContents, type NwbContents } from './list-nwb-contents';
-import type { NwbManifest, NwbPulseSeries } from './parse-nwb-manifest';
+import type { NwbManifest, NwbPulseSeries, NwbPulseTable } from './parse-nwb-manifest';
 import { planNwbRoles, type NwbPlan } from './plan-nwb-roles';
 import { readIntervalTable, type IntervalTable } from './read-interval-table';
 import { readTimeSeries } from './read-time-series';
@@ -182,7 +184,7 @@ function trialColumns(h5: Hdf5File, file: string, t: IntervalTable, conditionCol
   };
 }
 
-function pulseTableColumns(h5: Hdf5File, file: string, p: { table: string; powerColumn?: string; powerUnit?: 'mW' | 'W'; trainColumn?: string; frequencyColumn?: string }): PulseColumns {
+function pulseTableColumns(h5: Hdf5File, file: string, p: NwbPulseTable): PulseColumns {
   const t = readIntervalTable(h5, file, p.table);
   const onset = t.columns.start_time as Float64Array;
   const stopCol = t.columns.stop_time;
@@ -219,6 +221,7 @@ function pulseTableColumns(h5: Hdf5File, file: string, p: { table: string; power
     ...(train ? { train } : {}),
     ...(frequencyHz ? { frequencyHz } : {}),
     ...(powerMw ? { powerMw } : {}),
+    ...(p.trainMaxIpiS !== undefined ? { trainMaxIpiS: p.trainMaxIpiS } : {}),
   };
 }
 
@@ -244,9 +247,18 @@ function seriesPulses(h5: Hdf5File, file: string, p: NwbPulseSeries, meta: Recor
     if (l) meta.stimulus_site_location = l;
     if (lambda > 0) meta.excitation_lambda_nm = lambda;
   }
-  const found = pulsesFromSeries(s.times, powerMw, p.thresholdMw);
+  const minWidthMs = p.minWidthMs ?? 0.5;
+  const found = pulsesFromSeries(s.times, powerMw, {
+    ...(s.rateHz !== undefined ? { rateHz: s.rateHz } : {}),
+    ...(p.highThresholdMw !== undefined ? { highThreshold: p.highThresholdMw, lowThreshold: p.lowThresholdMw } : {}),
+    minWidthS: minWidthMs / 1000,
+  });
+  // Same warnings as a session folder's laser trace (core/io/import-session.ts).
+  const where = `${file} ${p.series}`;
+  if (found.dropped > 0) warnings.push({ code: 'laser-glitches-dropped', file, count: found.dropped, message: `${where}: ${found.dropped} crossing(s) shorter than ${minWidthMs} ms were ignored as glitches` });
+  if (found.unterminated > 0) warnings.push({ code: 'laser-pulse-unterminated', file, count: found.unterminated, message: `${where}: the trace ends during a pulse; its duration runs to the end of the trace` });
   if (found.onset.length === 0) {
-    warnings.push({ code: 'nwb-no-pulses', file, count: 1, message: `${p.series} never crosses the threshold (${found.thresholdMw} mW), so the session has no laser pulses` });
+    warnings.push({ code: 'laser-trace-without-pulses', file, count: 1, message: `${where}: no pulse crossed the threshold (${Math.round(found.highThreshold * 1e6) / 1e6} mW); the session has no laser pulses` });
     return null;
   }
   return {
@@ -254,7 +266,8 @@ function seriesPulses(h5: Hdf5File, file: string, p: NwbPulseSeries, meta: Recor
     columns: { onset: `${p.series} (threshold crossings)`, duration: `${p.series} (threshold crossings)`, power: `${p.series}/data` },
     onset: found.onset,
     duration: found.duration,
-    powerMw: found.powerMw,
+    powerMw: found.peak,
+    ...(p.trainMaxIpiS !== undefined ? { trainMaxIpiS: p.trainMaxIpiS } : {}),
   };
 }
 
@@ -313,7 +326,7 @@ function collectEvents(h5: Hdf5File, file: string, plan: NwbPlan, trials: Interv
           kind.push('');
         }
       } else {
-        const found = pulsesFromSeries(s.times, s.values, e.threshold);
+        const found = pulsesFromSeries(s.times, s.values, { ...(s.rateHz !== undefined ? { rateHz: s.rateHz } : {}), highThreshold: e.threshold, lowThreshold: e.threshold });
         for (const t of found.onset) {
           time.push(t);
           label.push(lab);

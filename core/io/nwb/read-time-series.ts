@@ -22,6 +22,8 @@ export interface TimeSeriesData {
   readonly neurodataType: string;
   /** Sample times, s. */
   readonly times: Float64Array;
+  /** Sampling rate, Hz, when the series gives starting_time + rate (undefined for timestamps). */
+  readonly rateHz?: number;
   /** Values in `unit` (conversion and offset applied). */
   readonly values: Float64Array;
   readonly unit: string;
@@ -57,6 +59,7 @@ export function readTimeSeries(h5: Hdf5File, file: string, path: string): TimeSe
   if (conversion !== 1 || offset !== 0) for (let i = 0; i < n; i++) values[i] = values[i] * conversion + offset;
 
   let times: Float64Array;
+  let rateHz: number | undefined;
   const tsPath = `${path}/timestamps`;
   const stPath = `${path}/starting_time`;
   if (h5.kind(tsPath) === 'dataset') {
@@ -72,6 +75,7 @@ export function readTimeSeries(h5: Hdf5File, file: string, path: string): TimeSe
     }
     times = new Float64Array(n);
     for (let i = 0; i < n; i++) times[i] = t0 + i / rate;
+    rateHz = rate;
   } else {
     throw new InputError({ file, value: path, problem: 'the series has neither timestamps nor starting_time', fix: 'write timestamps (s) or starting_time with a rate (Hz)' });
   }
@@ -79,6 +83,7 @@ export function readTimeSeries(h5: Hdf5File, file: string, path: string): TimeSe
     path,
     neurodataType: textAttr(h5, path, 'neurodata_type'),
     times,
+    ...(rateHz !== undefined ? { rateHz } : {}),
     values,
     unit: textAttr(h5, dataPath, 'unit'),
     description: textAttr(h5, path, 'description'),

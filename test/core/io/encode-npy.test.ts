@@ -10,7 +10,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { encodeNpy, type NpyArray } from '../../../core/io/encode-npy';
+import { encodeNpy, type NpyWritable } from '../../../core/io/encode-npy';
 
 const DIR = join(__dirname, '../../fixtures/sim/npy');
 const manifest = JSON.parse(readFileSync(join(DIR, 'manifest.json'), 'utf8')) as {
@@ -18,7 +18,7 @@ const manifest = JSON.parse(readFileSync(join(DIR, 'manifest.json'), 'utf8')) as
   files: Record<string, { dtype: string; shape: number[]; values: number[] }>;
 };
 
-function typed(dtype: string, values: number[]): NpyArray {
+function typed(dtype: string, values: number[]): NpyWritable {
   switch (dtype) {
     case '<f8':
       return Float64Array.from(values);
@@ -81,5 +81,33 @@ print(b.dtype.str, b.shape, int(b[4, 2468]), int(b.sum()))`,
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
+  });
+});
+
+describe('encodeNpy -> readNpy round trip (property-based, fast-check)', () => {
+  it('any float64 / int32 / int16 array and 2-D shape comes back equal', async () => {
+    const fc = await import('fast-check');
+    const { readNpy } = await import('../../../core/io/read-npy');
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ noNaN: true }), { maxLength: 200 }),
+        fc.array(fc.integer({ min: -2147483648, max: 2147483647 }), { maxLength: 200 }),
+        fc.integer({ min: 1, max: 7 }),
+        (xs, ints, cols) => {
+          const a = readNpy(encodeNpy(Float64Array.from(xs)), 'a.npy');
+          expect(a.shape).toEqual([xs.length]);
+          expect(Array.from(a.data as Float64Array)).toEqual(xs.map((x) => (Object.is(x, -0) ? -0 : x)));
+          const rows = Math.floor(ints.length / cols);
+          const m = Int32Array.from(ints.slice(0, rows * cols));
+          const b = readNpy(encodeNpy(m, [rows, cols]), 'b.npy');
+          expect(b.shape).toEqual([rows, cols]);
+          expect(b.descr).toBe('<i4');
+          expect(Array.from(b.data as Int32Array)).toEqual(Array.from(m));
+          const c = readNpy(encodeNpy(Int16Array.from(ints.map((v) => v >> 16))), 'c.npy');
+          expect(c.descr).toBe('<i2');
+        },
+      ),
+      { seed: 42, numRuns: 200 },
+    );
   });
 });

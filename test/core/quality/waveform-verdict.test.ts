@@ -3,6 +3,8 @@ import { DEFAULTS } from '../../../core/defaults';
 import type { Recording } from '../../../core/model/types';
 import { emptyEvents, emptyPulses, emptyTrials } from '../../../core/model/empty';
 import { analyseRecording } from '../../../core/pipeline/analyse-recording';
+import { basicStep } from '../../../core/pipeline/basic-step';
+import { qualityStep } from '../../../core/quality/quality-step';
 import { qualityVerdict } from '../../../core/quality/quality-verdict';
 import { unitQuality } from '../../../core/quality/unit-quality';
 import { waveformShape } from '../../../core/quality/waveform-shape';
@@ -108,7 +110,7 @@ describe('qualityStep in the pipeline', () => {
       spanSource: 'inputs',
       waveformSampleRateHz: 30000,
     };
-    const res = analyseRecording(rec, DEFAULTS);
+    const res = analyseRecording(rec, DEFAULTS, [basicStep, qualityStep]);
     const names = res.table.columns.map((c) => c.name);
     expect(names).toEqual([
       'unit', 'n_spikes', 'rate_hz',

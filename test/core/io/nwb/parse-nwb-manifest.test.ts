@@ -44,13 +44,19 @@ describe('parseNwbManifest', () => {
   it('takes a trials path as a string, false to turn roles off, and nothing as {}', () => {
     expect(parseNwbManifest({ trials: '/intervals/trials', pulses: false, events: false })).toEqual({ trials: { table: '/intervals/trials' }, pulses: false, events: false });
     expect(parseNwbManifest(undefined)).toEqual({});
-    expect(parseNwbManifest({ pulses: { series: '/stimulus/presentation/laser', threshold_mw: 1 } })).toEqual({ pulses: { series: '/stimulus/presentation/laser', thresholdMw: 1 } });
+    expect(parseNwbManifest({ pulses: { series: '/stimulus/presentation/laser', threshold_mw: 1 } })).toEqual({ pulses: { series: '/stimulus/presentation/laser', highThresholdMw: 1, lowThresholdMw: 1 } });
+    expect(parseNwbManifest({ pulses: { series: '/l', high_threshold_mw: 3, low_threshold_mw: 2, min_width_ms: 1, train_max_ipi_s: 0.2 } })).toEqual({
+      pulses: { series: '/l', highThresholdMw: 3, lowThresholdMw: 2, minWidthMs: 1, trainMaxIpiS: 0.2 },
+    });
   });
   it.each([
     [{ unit: '/units' }, 'session.json, column "nwb.unit": unknown key'],
     [{ pulses: { table: '/a', series: '/b' } }, 'either "table" or "series"'],
     [{ pulses: { table: '/a', power_unit: 'kW' } }, 'must be "mW" or "W"'],
     [{ pulses: { series: '/a', threshold_mw: -1 } }, 'must be a positive number'],
+    [{ pulses: { series: '/a', high_threshold_mw: 3 } }, 'give both high_threshold_mw and low_threshold_mw'],
+    [{ pulses: { series: '/a', high_threshold_mw: 2, low_threshold_mw: 3 } }, 'must not exceed high_threshold_mw'],
+    [{ pulses: { series: '/a', threshold_mw: 2, low_threshold_mw: 3 } }, 'not both'],
     [{ pulses: {} }, 'needs "table"'],
     [{ events: { table: '/a' } }, 'must be a list'],
     [{ events: [{ label: 'x' }] }, 'nwb.events[0]'],

@@ -1,33 +1,46 @@
-// Threshold crossing on a sampled square-pulse trace. Expected values are
-// worked by hand from the trace below (no outside library needed: each pulse
-// starts at the first sample >= threshold and ends at the first sample below).
+// Threshold crossing on sampled square-pulse traces, through the project's
+// laser-trace detector (core/io/detect-laser-pulses.ts, tested on its own).
+// Expected values are worked by hand from the traces below.
 import { describe, expect, it } from 'vitest';
+import { detectLaserPulses } from '../../../../core/io/detect-laser-pulses';
 import { pulsesFromSeries } from '../../../../core/io/nwb/pulses-from-series';
 
-const t = Float64Array.from({ length: 12 }, (_, i) => i * 0.001); // 1 kHz
-const v = Float64Array.of(0, 0, 8, 10, 0, 0, 0, 4, 4, 0, 12, 12); // mW
+const v = Float64Array.of(0, 0, 8, 10, 0, 0, 0, 4, 4, 0, 12, 12); // mW, 1 kHz from 0.5 s
+const t = Float64Array.from(v, (_, i) => 0.5 + i / 1000);
+const round = (a: Float64Array) => Array.from(a, (x) => Math.round(x * 1e9) / 1e9);
 
 describe('pulsesFromSeries', () => {
-  it('finds pulses above an explicit threshold, with duration and peak power', () => {
-    const p = pulsesFromSeries(t, v, 3);
-    expect(Array.from(p.onset)).toEqual([0.002, 0.007, 0.01]);
-    // third pulse is still on at the last sample: it ends there
-    expect(Array.from(p.duration).map((d) => Math.round(d * 1e9) / 1e9)).toEqual([0.002, 0.002, 0.001]);
-    expect(Array.from(p.powerMw)).toEqual([10, 4, 12]);
-    expect(p.thresholdMw).toBe(3);
+  it('regularly sampled: same onsets and durations as the folder laser-trace detector, plus peak power', () => {
+    const p = pulsesFromSeries(t, v, { rateHz: 1000, highThreshold: 3, lowThreshold: 3, minWidthS: 0.0005 });
+    const d = detectLaserPulses(v, { sampleRateHz: 1000, startS: 0.5, highThreshold: 3, lowThreshold: 3, minWidthS: 0.0005 });
+    expect(Array.from(p.onset)).toEqual(Array.from(d.onsetS));
+    expect(Array.from(p.duration)).toEqual(Array.from(d.durationS));
+    expect(round(p.onset)).toEqual([0.502, 0.507, 0.51]);
+    expect(round(p.duration)).toEqual([0.002, 0.002, 0.002]); // the last runs to the end of the trace
+    expect(Array.from(p.peak)).toEqual([10, 4, 12]);
+    expect(p.unterminated).toBe(1);
   });
-  it('defaults to half the maximum (6 mW here), so the 4 mW pulse is not counted', () => {
-    const p = pulsesFromSeries(t, v);
-    expect(p.thresholdMw).toBe(6);
-    expect(Array.from(p.onset)).toEqual([0.002, 0.01]);
+  it('default levels 60 % / 40 % of the range (7.2 / 4.8 mW here) leave out the 4 mW pulse', () => {
+    const p = pulsesFromSeries(t, v, { rateHz: 1000 });
+    expect(p.highThreshold).toBeCloseTo(7.2, 12);
+    expect(round(p.onset)).toEqual([0.502, 0.51]);
   });
-  it('a trace that starts high starts a pulse at the first sample; NaN counts as low', () => {
-    const p = pulsesFromSeries(Float64Array.of(0, 1, 2, 3), Float64Array.of(5, NaN, 5, 0), 1);
-    expect(Array.from(p.onset)).toEqual([0, 2]);
-    expect(Array.from(p.duration)).toEqual([1, 1]);
+  it('irregular timestamps (value held until the next sample): onsets and ends at the timestamps', () => {
+    // power stored at each change: on at 1.0 s, off at 1.005 s; on at 2.0 s, off at 2.01 s; on at 3.0 s to the end
+    const ts = Float64Array.of(0, 1.0, 1.005, 2.0, 2.01, 3.0);
+    const vs = Float64Array.of(0, 5, 0, 5, 0, 5);
+    const p = pulsesFromSeries(ts, vs, { highThreshold: 1 });
+    expect(Array.from(p.onset)).toEqual([1.0, 2.0, 3.0]);
+    expect(round(p.duration)).toEqual([0.005, 0.01, 0]);
+    expect(Array.from(p.peak)).toEqual([5, 5, 5]);
   });
-  it('a flat zero trace and an empty trace have no pulses', () => {
-    expect(pulsesFromSeries(t, new Float64Array(12)).onset.length).toBe(0);
+  it('drops pulses shorter than the minimum width; a flat or empty trace has none', () => {
+    const ts = Float64Array.of(0, 1.0, 1.0001, 2.0, 2.005);
+    const vs = Float64Array.of(0, 5, 0, 5, 0);
+    const p = pulsesFromSeries(ts, vs, { highThreshold: 1 });
+    expect(Array.from(p.onset)).toEqual([2.0]);
+    expect(p.dropped).toBe(1);
+    expect(pulsesFromSeries(t, new Float64Array(12), { rateHz: 1000 }).onset.length).toBe(0);
     expect(pulsesFromSeries(new Float64Array(0), new Float64Array(0)).onset.length).toBe(0);
   });
 });

@@ -9,7 +9,8 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { isInputError } from '../../../../core/errors';
 import { inspectNwbFile } from '../../../../core/node/nwb/inspect-nwb-file';
-import { loadNwbSession } from '../../../../core/node/nwb/load-nwb-session';
+import { loadNwbSession } from '../../../../core/node/load-nwb-session';
+import { loadSession } from '../../../../core/node/load-session';
 
 const DIR = join(__dirname, '../../../fixtures/nwb');
 const expected = JSON.parse(readFileSync(join(DIR, 'expected.json'), 'utf8'));
@@ -119,16 +120,14 @@ describe('loadNwbSession on h5py-written fixtures', () => {
   });
 
   it('follows a manifest: pulses off, events from one table with a fixed label, condition column named', async () => {
-    const r = await loadNwbSession(path('session_uint8.nwb'), {
-      section: { pulses: false, events: [{ table: '/intervals/jump', label: 'jump', kind_column: 'kind' }], trials: { condition_column: 'condition' } },
-    });
+    const r = await loadNwbSession(path('session_uint8.nwb'), { pulses: false, events: [{ table: '/intervals/jump', label: 'jump', kind_column: 'kind' }], trials: { condition_column: 'condition' } });
     expect(r.recording.pulses.onset.length).toBe(0);
     expect(r.recording.events.label).toEqual(['jump', 'jump']);
     expect(r.recording.meta?.stimulus_site_description).toBeUndefined();
   });
 
   it('takes the span from session.json over the observation intervals', async () => {
-    const r = await loadNwbSession(path('session_uint8.nwb'), { span: { startS: null, stopS: 120 } });
+    const r = await loadNwbSession(path('session_uint8.nwb'), undefined, { parameterSources: [{ file: 'analysis.json', overrides: { span: { stopS: 120 } } }] });
     expect(r.recording.span).toEqual([0, 120]);
     expect(r.recording.spanSource).toBe('manifest');
   });
@@ -156,7 +155,7 @@ describe('loadNwbSession errors: one paragraph naming the file and the problem',
     await expect(loadNwbSession(path('bad_version3.nwb'))).rejects.toThrow(/reads NWB 2\.x \(2\.0\.0 and later 2\.\* releases\)/);
   });
   it('a manifest path the file does not hold names the manifest key', async () => {
-    await expect(loadNwbSession(path('session_uint8.nwb'), { section: { units: '/processing/units' } })).rejects.toThrow(/session\.json, column "nwb\.units".*no table at this path/);
+    await expect(loadNwbSession(path('session_uint8.nwb'), { units: '/processing/units' })).rejects.toThrow(/session\.json, column "nwb\.units".*no table at this path/);
   });
 });
 
@@ -191,5 +190,54 @@ describe('fixtures', () => {
   it('records its writer and versions', () => {
     expect(expected.generator).toBe('test/fixtures/nwb/make_fixtures.py');
     expect(Object.keys(expected.versions)).toEqual(['h5py', 'numpy', 'hdf5']);
+  });
+});
+
+describe('NWB through loadSession and the CLI', () => {
+  it('a folder whose session.json has an nwb section reads the file with those choices and parameters', async () => {
+    const { mkdtempSync, copyFileSync, writeFileSync, rmSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const dir = mkdtempSync(join(tmpdir(), 'tagbench-nwb-manifest-'));
+    try {
+      copyFileSync(path('session_uint8.nwb'), join(dir, 'rec.nwb'));
+      writeFileSync(join(dir, 'session.json'), JSON.stringify({ nwb: { file: 'rec.nwb', pulses: false, events: [{ trials_column: 'reward_time', label: 'water' }] }, parameters: { span: { stopS: 150 } } }));
+      const r = await loadSession(dir);
+      expect(r.sourceKind).toBe('nwb');
+      expect(r.recording.pulses.onset.length).toBe(0);
+      expect([...new Set(r.recording.events.label)]).toEqual(['water']);
+      expect(r.recording.span).toEqual([0, 150]);
+      expect(r.recording.spanSource).toBe('manifest');
+      writeFileSync(join(dir, 'session.json'), JSON.stringify({ nwb: { file: 'rec.nwb', pulse: false } }));
+      await expect(loadSession(dir)).rejects.toThrow(/session\.json, column "nwb\.pulse": unknown key/);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it('tagbench inspect file.nwb prints the NWB listing, then the session summary', async () => {
+    const { runCli } = await import('../../../../core/node/run-cli');
+    const out: string[] = [];
+    const err: string[] = [];
+    const code = await runCli(['inspect', path('pulse_table.nwb')], { stdout: (t) => void out.push(t), stderr: (t) => void err.push(t), isTty: false });
+    expect(err.join('')).toBe('');
+    expect(code).toBe(0);
+    const text = out.join('');
+    expect(text).toContain('/intervals/laser_pulses  [TimeIntervals, 6 rows]');
+    expect(text).toContain('A run would use:');
+    expect(text.indexOf('A run would use:')).toBeLessThan(text.indexOf('Session: pulse_table (NWB file)'));
+    const out2: string[] = [];
+    expect(await runCli(['inspect', path('session_uint8.nwb')], { stdout: (t) => void out2.push(t), stderr: () => {}, isTty: false })).toBe(0);
+    expect(out2.join('')).toContain('stimulus_site_description = fibre above dorsal raphe, 200 um core');
+    expect(out2.join('')).toContain('observation intervals: 3 units (1 with gaps)');
+  });
+
+  it('tagbench run on a bad NWB file: exit 2, one paragraph on stderr, no stack', async () => {
+    const { runCli } = await import('../../../../core/node/run-cli');
+    const err: string[] = [];
+    const code = await runCli(['run', path('bad_index_range.nwb'), '--out', join(DIR, 'never-written')], { stdout: () => {}, stderr: (t) => void err.push(t), isTty: false });
+    expect(code).toBe(2);
+    expect(err.join('').trim().split('\n')).toHaveLength(1);
+    expect(err.join('')).toContain('bad_index_range.nwb, column "/units/spike_times_index": index out of range');
+    expect(readdirSync(DIR)).not.toContain('never-written');
   });
 });

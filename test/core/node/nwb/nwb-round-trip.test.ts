@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { loadNwbSession } from '../../../../core/node/nwb/load-nwb-session';
+import { loadNwbSession } from '../../../../core/node/load-nwb-session';
 import { demoScenario } from '../../../../core/sim/demo-scenario';
 import { simulateSession } from '../../../../core/sim/simulate-session';
 import { writeNwbFromRecording } from './write-nwb-from-recording';

@@ -1,0 +1,78 @@
+import { existsSync, statSync } from 'node:fs';
+import { basename, dirname, isAbsolute, resolve } from 'node:path';
+import { applyCuration } from '../curation/apply-curation';
+import { compareInputs, type InputMismatch } from '../curation/compare-inputs';
+import { describeInputMismatch } from '../curation/describe-input-mismatch';
+import type { CurationState } from '../curation/types';
+import { EMPTY_CURATION } from '../curation/types';
+import type { Parameters } from '../defaults';
+import { InputError } from '../errors';
+import type { ImportResult } from '../io/import-result';
+import { analyseRecording, type AnalysisResult } from '../pipeline/analyse-recording';
+import { resolveParameters } from '../resolve-parameters';
+import type { UnitTable } from '../table/types';
+import { loadSessionFile } from './session-store';
+
+/** Reads a session folder or NWB file into an ImportResult (the import area's loader). */
+export type ImportSource = (path: string) => Promise<ImportResult>;
+
+/** A session opened for export or report: analysed, with curation applied. */
+export interface OpenedSession {
+  /** The session file, or null when a data source was opened directly. */
+  readonly sessionFile: string | null;
+  /** The data source path as resolved. */
+  readonly source: string;
+  readonly imported: ImportResult;
+  readonly parameters: Parameters;
+  readonly analysis: AnalysisResult;
+  /** The analysis table with curation columns (final_V, included, note, ...). */
+  readonly table: UnitTable;
+  readonly curation: CurationState;
+  /** Things to tell the user (backup used, inputs changed, curation of unknown units). */
+  readonly notices: readonly string[];
+  readonly mismatch: InputMismatch | null;
+  readonly orphans: readonly string[];
+}
+
+/** True when a path names a session file (a .json file) rather than a data source. */
+export function isSessionFilePath(path: string): boolean {
+  return /\.json$/i.test(path) && (!existsSync(path) || statSync(path).isFile());
+}
+
+/**
+ * Opens a session file (or a data source directly, without curation):
+ * loads and validates the session file (falling back to its backup, with a
+ * notice), imports its source (path relative to the session file's folder),
+ * compares the input hashes, analyses with the session's parameters and
+ * applies the curation.
+ *
+ * Changed inputs: an InputError naming every changed file, unless
+ * `allowChangedInputs`, in which case the curation is applied and the
+ * mismatch is a notice (written to stderr, run.json and the report).
+ */
+export async function openSession(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean } = {}): Promise<OpenedSession> {
+  if (!isSessionFilePath(path)) {
+    const imported = await importSource(path);
+    const parameters = resolveParameters(imported.parameterSources);
+    const analysis = analyseRecording(imported.recording, parameters);
+    const { table } = applyCuration(analysis.table, EMPTY_CURATION);
+    return { sessionFile: null, source: path, imported, parameters, analysis, table, curation: EMPTY_CURATION, notices: [], mismatch: null, orphans: [] };
+  }
+  const loaded = loadSessionFile(path);
+  const notices: string[] = loaded.notice ? [loaded.notice] : [];
+  const s = loaded.session;
+  const source = isAbsolute(s.source) ? s.source : resolve(dirname(path), s.source);
+  const imported = await importSource(source);
+  const mismatch = compareInputs(s.inputs, imported.inputs);
+  if (!mismatch.same) {
+    const msg = describeInputMismatch(mismatch, basename(path));
+    if (!opts.allowChangedInputs) {
+      throw new InputError({ file: basename(path), problem: msg.slice(basename(path).length + 2).replace(/\.$/, ''), fix: 'if the change is intended (e.g. a corrected file), rerun with --allow-changed-inputs; the report and run.json will then say so' });
+    }
+    notices.push(msg);
+  }
+  const analysis = analyseRecording(imported.recording, s.parameters);
+  const { table, orphans } = applyCuration(analysis.table, s.curation);
+  if (orphans.length) notices.push(`${basename(path)}: curation of ${orphans.length} unit(s) not in the recording was not applied: ${orphans.slice(0, 10).join(', ')}${orphans.length > 10 ? ', ...' : ''}.`);
+  return { sessionFile: path, source, imported, parameters: s.parameters, analysis, table, curation: s.curation, notices, mismatch: mismatch.same ? null : mismatch, orphans };
+}

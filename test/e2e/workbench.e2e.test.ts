@@ -1,0 +1,199 @@
+/**
+ * Browser end-to-end tests of the workbench: the production build served on
+ * 127.0.0.1, driven in Debian's Chromium. One user's path through every
+ * screen: open the demo, see every unit, open a unit page with its plots
+ * drawn, change a parameter and re-run, label a unit and undo it, export the
+ * unit table and read it back. Screenshots of each screen go to
+ * test-artifacts/e2e/.
+ */
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoDir } from '../../renderer/vite.config';
+import { ARTIFACTS, openWorkbench, type Workbench } from './browser';
+
+const LONG = 180_000;
+let wb: Workbench;
+
+/** Spike counts per unit of the bundled demo, counted here from its spikes.csv (independently of the app). */
+function demoSpikeCounts(): Map<string, number> {
+  const text = readFileSync(join(demoDir(), 'spikes.csv'), 'utf8').trim().split('\n');
+  const header = text[0].split(',');
+  const u = header.indexOf('unit');
+  const counts = new Map<string, number>();
+  for (const line of text.slice(1)) {
+    const id = line.split(',')[u];
+    counts.set(id, (counts.get(id) ?? 0) + 1);
+  }
+  return counts;
+}
+
+const shot = (name: string) => wb.page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
+
+describe.sequential('workbench in a real browser', () => {
+  beforeAll(async () => {
+    wb = await openWorkbench();
+    await wb.page.goto(wb.server.url, { waitUntil: 'domcontentloaded' });
+    await wb.page.getByTestId('open-demo').waitFor({ timeout: LONG });
+  }, LONG * 2);
+  afterAll(async () => {
+    await wb?.close();
+  });
+
+  it('opens the bundled demo in one click and shows the session overview', async () => {
+    await shot('1-start');
+    await wb.page.getByTestId('open-demo').click();
+    await wb.page.locator('[data-testid=timeline-plot][data-drawn=true]').waitFor({ timeout: LONG });
+    const counts = demoSpikeCounts();
+    const total = [...counts.values()].reduce((a, b) => a + b, 0);
+    await expect.poll(() => wb.page.locator('.fact').first().innerText()).toContain(String(counts.size));
+    expect(await wb.page.locator('.facts').innerText()).toContain(total.toLocaleString('en'));
+    await shot('2-session-overview');
+  }, LONG);
+
+  it('lists every unit of the demo in the unit table, with the right spike counts', async () => {
+    const counts = demoSpikeCounts();
+    await wb.page.getByRole('button', { name: 'Unit table' }).click();
+    await wb.page.getByTestId('unit-table').waitFor();
+    expect(await wb.page.getByTestId('row-count').innerText()).toBe(`${counts.size} of ${counts.size} units`);
+    const rows = wb.page.locator('.trow');
+    // Virtualised: only the rows in view (plus a few) are in the page; scroll through to see them all.
+    if (counts.size > 60) expect(await rows.count()).toBeLessThan(counts.size);
+    const shown = new Map<string, number>();
+    const table = wb.page.getByTestId('unit-table');
+    for (let pass = 0; pass < 200 && shown.size < counts.size; pass++) {
+      for (const cells of await rows.evaluateAll((els) => els.map((e) => Array.from(e.querySelectorAll('.cell')).map((c) => (c as HTMLElement).innerText)))) {
+        shown.set(cells[0], Number(cells[1]));
+      }
+      await table.evaluate((el) => (el.scrollTop += el.clientHeight - 60));
+      await wb.page.waitForTimeout(50);
+    }
+    await table.evaluate((el) => (el.scrollTop = 0));
+    expect(shown).toEqual(counts);
+    // Sorting by n_spikes descending puts the busiest unit first.
+    await wb.page.getByRole('columnheader', { name: 'n_spikes' }).click();
+    await wb.page.getByRole('columnheader', { name: /n_spikes/ }).click();
+    const busiest = [...counts].sort((a, b) => b[1] - a[1])[0][0];
+    expect(await rows.first().getAttribute('data-unit')).toBe(busiest);
+    // Filtering keeps only matching units.
+    await wb.page.getByLabel('Filter units').fill(`n_spikes>=${counts.get(busiest)}`);
+    expect(await wb.page.getByTestId('row-count').innerText()).toBe(`1 of ${counts.size} units`);
+    await wb.page.getByLabel('Filter units').fill('');
+    await shot('3-unit-table');
+  }, LONG);
+
+  it('opens a unit page and draws its plots', async () => {
+    const first = wb.page.locator('.trow').first();
+    const id = await first.getAttribute('data-unit');
+    await first.dblclick();
+    await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).toBe(`Unit ${id}`);
+    const plot = wb.page.locator('[data-testid=plot-event-response][data-drawn=true]');
+    await plot.waitFor({ timeout: LONG });
+    expect(await plot.locator('.scatterlayer .trace').count()).toBeGreaterThan(1);
+    expect(await plot.locator('.xtitle').textContent()).toMatch(/^Time from \w+ \(s\)$/);
+    expect(await plot.locator('.ytitle').first().textContent()).toMatch(/\((spikes\/s|Hz)\)|Trial|Event/);
+    await shot('4-unit-page');
+    // Next unit by keyboard.
+    await wb.page.keyboard.press('Control+ArrowDown');
+    await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).not.toBe(`Unit ${id}`);
+    await wb.page.keyboard.press('Control+ArrowUp');
+    await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).toBe(`Unit ${id}`);
+  }, LONG);
+
+  it('sets a label by key, shows it in the table, and undoes it', async () => {
+    const title = await wb.page.getByTestId('unit-title').innerText();
+    const id = title.replace('Unit ', '');
+    const yourTag = wb.page.getByRole('radiogroup', { name: 'Your tag label' });
+    await wb.page.keyboard.press('1');
+    await expect.poll(() => yourTag.getByRole('radio', { name: 'tagged', exact: true }).getAttribute('aria-checked')).toBe('true');
+    expect(await wb.page.locator('.status-text').innerText()).toBe(`unit ${id}: tag labelled tagged`);
+    await shot('4b-unit-page-labelled');
+    await wb.page.getByRole('button', { name: 'Unit table' }).click();
+    const labelCell = () => wb.page.locator(`.trow[data-unit="${id}"] .cell`).nth(-2).innerText();
+    expect(await labelCell()).toBe('tag: tagged');
+    await wb.page.keyboard.press('Control+z');
+    await expect.poll(labelCell).toBe('');
+    expect(await wb.page.locator('.status-text').innerText()).toBe(`Undone: change to unit ${id}.`);
+    await wb.page.keyboard.press('Control+Shift+Z');
+    await expect.poll(labelCell).toBe('tag: tagged');
+    await wb.page.keyboard.press('Control+z');
+    await expect.poll(labelCell).toBe('');
+  }, LONG);
+
+  it('changes a parameter, re-runs the analysis, and keeps the setting with the session', async () => {
+    const tableText = () => wb.page.locator('.vtable-body').innerText();
+    const before = await tableText();
+    await wb.page.getByRole('button', { name: 'Analysis settings' }).click();
+    await wb.page.locator('#p-light-windowEndMs').fill('4');
+    await wb.page.getByTestId('rerun').click();
+    await expect.poll(() => wb.page.locator('.status-text').innerText(), { timeout: 60_000 }).toMatch(/^Analysis re-run in \d+ ms with changed settings\.$/);
+    // Marked: values that differ from the defaults (the demo's session.json also sets the span).
+    expect(await wb.page.locator('tr.changed th').allInnerTexts()).toContain('windowEndMs');
+    expect(await wb.page.locator('tr.changed th').allInnerTexts()).not.toContain('windowStartMs');
+    await shot('5-analysis-settings');
+    await wb.page.getByRole('button', { name: 'Unit table' }).click();
+    expect(await tableText()).not.toBe(before);
+    // The session file kept in this browser holds the new value (autosave).
+    await expect
+      .poll(() =>
+        wb.page.evaluate(() => {
+          for (let i = 0; i < localStorage.length; i++) {
+            const k = localStorage.key(i)!;
+            if (k.startsWith('tagbench:state:demo')) return JSON.parse(localStorage.getItem(k)!).parameters?.light?.windowEndMs;
+          }
+          return null;
+        }),
+      )
+      .toBe(4);
+  }, LONG);
+
+  it('shows the population and the keyboard help', async () => {
+    await wb.page.getByRole('button', { name: 'Population' }).click();
+    await wb.page.locator('.population').waitFor({ timeout: LONG });
+    await shot('6-population');
+    await wb.page.keyboard.press('?');
+    await wb.page.getByRole('dialog', { name: 'Keyboard shortcuts' }).waitFor();
+    await shot('8-help');
+    await wb.page.keyboard.press('Escape');
+    expect(await wb.page.getByRole('dialog').count()).toBe(0);
+  }, LONG);
+
+  it('exports the unit table and reads it back', async () => {
+    const counts = demoSpikeCounts();
+    await wb.page.getByRole('button', { name: 'Export' }).click();
+    await shot('7-export');
+    const [download] = await Promise.all([wb.page.waitForEvent('download'), wb.page.getByTestId('export-units-csv').click()]);
+    expect(download.suggestedFilename()).toBe('units.csv');
+    const text = readFileSync((await download.path())!, 'utf8');
+    const lines = text.trim().split('\n');
+    expect(lines[0].split(',').slice(0, 3)).toEqual(['unit', 'n_spikes', 'rate_hz']);
+    expect(lines).toHaveLength(counts.size + 1);
+    for (const line of lines.slice(1)) {
+      const [id, n] = line.split(',');
+      expect(Number(n)).toBe(counts.get(id));
+    }
+    const [curated] = await Promise.all([wb.page.waitForEvent('download'), wb.page.getByTestId('export-curated-csv').click()]);
+    const head = readFileSync((await curated.path())!, 'utf8').split('\n')[0].split(',');
+    expect(head).toContain('final_tag');
+    expect(head).toContain('included');
+    expect(wb.pageErrors).toEqual([]);
+  }, LONG);
+
+  it('shows the importer message, not a stack trace, for an unreadable session folder', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tagbench-bad-session-'));
+    writeFileSync(join(dir, 'spikes.csv'), 'unit,time\n1,0.5\n1,abc\n');
+    await wb.page.getByRole('button', { name: 'Start' }).click();
+    const [chooser] = await Promise.all([wb.page.waitForEvent('filechooser'), wb.page.getByRole('button', { name: 'Open session folder...' }).click()]);
+    await chooser.setFiles(dir);
+    const screen = wb.page.getByRole('alert');
+    await screen.waitFor();
+    const text = await screen.innerText();
+    expect(text).toMatch(/^Could not open /);
+    expect(text).toMatch(/spikes\.csv, row 3, column "time"/);
+    expect(text).not.toMatch(/\n\s+at /);
+    await shot('9-error-screen');
+    await wb.page.getByRole('button', { name: 'Back to Start' }).click();
+    await wb.page.getByTestId('open-demo').waitFor();
+  }, LONG);
+});

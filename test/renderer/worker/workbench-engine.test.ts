@@ -1,0 +1,78 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { DEFAULTS } from '../../../core/defaults';
+import { EMPTY_CURATION } from '../../../core/curation/types';
+import { parseDelimited } from '../../../core/export/parse-delimited';
+import type { SessionFileInput } from '../../../renderer/worker/api';
+import { WorkbenchEngine } from '../../../renderer/worker/workbench-engine';
+
+const TINY = resolve(__dirname, '../../fixtures/desktop/tiny-session');
+
+function files(dir: string): SessionFileInput[] {
+  return readdirSync(dir).map((name) => ({ name, blob: new Blob([readFileSync(join(dir, name))]) }));
+}
+
+/** Spike counts per unit, counted here from the CSV text (independent of the importer). */
+function countSpikes(dir: string): Map<string, number> {
+  const m = new Map<string, number>();
+  for (const line of readFileSync(join(dir, 'spikes.csv'), 'utf8').trim().split('\n').slice(1)) {
+    const u = line.split(',')[0];
+    m.set(u, (m.get(u) ?? 0) + 1);
+  }
+  return m;
+}
+
+describe('the workbench engine (what the analysis worker runs)', () => {
+  it('imports a session from Blobs, analyses it and summarises it', async () => {
+    const engine = new WorkbenchEngine();
+    const progress: string[] = [];
+    const out = await engine.open(files(TINY), 'tiny', {}, (p) => progress.push(p.label));
+    const counts = countSpikes(TINY);
+    const unit = out.table.columns.find((c) => c.name === 'unit')!;
+    const n = out.table.columns.find((c) => c.name === 'n_spikes')!;
+    expect(out.table.rowCount).toBe(counts.size);
+    for (let i = 0; i < out.table.rowCount; i++) expect(n.values[i]).toBe(counts.get(unit.values[i] as string));
+    expect(out.summary).toMatchObject({ units: 8, spikes: 6352, pulses: 25, singlePulses: 25 });
+    expect(out.summary.trialsByCondition).toEqual([{ condition: 'standard', count: 10 }, { condition: 'probe', count: 3 }]);
+    expect(out.summary.eventsByLabel.map((e) => [e.label, e.count])).toEqual([['tone_on', 13], ['reward', 13], ['jump', 3]]);
+    expect(out.inputs.map((f) => f.file)).toContain('spikes.csv');
+    expect(out.inputs.find((f) => f.file === 'spikes.csv')!.sha256).toMatch(/^[0-9a-f]{64}$/);
+    expect(progress.at(-1)).toBe('Analysis done');
+  });
+
+  it('re-runs with overrides, refuses unknown parameters with the key named', async () => {
+    const engine = new WorkbenchEngine();
+    await engine.open(files(TINY), 'tiny', {}, () => undefined);
+    const r = await engine.analyse({ ramp: { binS: 0.05 } }, () => undefined);
+    expect(r.parameters.ramp.binS).toBe(0.05);
+    await expect(engine.analyse({ ramp: { binSize: 1 } }, () => undefined)).rejects.toThrow(/Analysis settings, column "ramp.binSize": unknown parameter/);
+  });
+
+  it('draws the event response of a unit and the population counts without excluded units', async () => {
+    const engine = new WorkbenchEngine();
+    await engine.open(files(TINY), 'tiny', {}, () => undefined);
+    const a = DEFAULTS.align;
+    const v = await engine.unitView(4, { event: 'reward', windowStartS: -3, windowStopS: 1, binMs: a.binMs, smoothing: 'none', smoothingWidthMs: 0, groupBy: 'condition' });
+    expect(v.unitId).toBe('5');
+    const ev = v.figures.find((f) => f.id === 'event-response')!;
+    expect(ev.section).toBe('event');
+    // The page's window reaches the figure: x axis from -3 to 1 s.
+    expect(JSON.stringify(ev.spec.layout)).toContain('-3');
+    expect(v.figures.some((f) => f.section === 'quality')).toBe(true);
+    expect(v.figures.filter((f) => f.section === 'light').length).toBeGreaterThan(0);
+    const at = '2026-01-01T00:00:00.000Z';
+    const curation = { units: { '1': { labels: {}, include: { value: false, by: 't', at } }, '2': { labels: {}, include: { value: false, by: 't', at } } } };
+    const pop = await engine.population(curation);
+    expect(pop.units).toBe(6);
+    expect((await engine.population(EMPTY_CURATION)).units).toBe(8);
+    const text = await engine.tableText('csv', null);
+    expect(text.split('\n')[0].startsWith('unit,n_spikes,rate_hz')).toBe(true);
+    const curated = parseDelimited(await engine.tableText('csv', curation), ',', 'units_curated.csv');
+    const header = curated[0];
+    expect(header).toContain('included');
+    expect(curated[1][header.indexOf('unit')]).toBe('1');
+    expect(curated[1][header.indexOf('included')]).toBe('no');
+    expect(curated[3][header.indexOf('included')]).toBe('yes');
+  });
+});
