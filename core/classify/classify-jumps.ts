@@ -170,7 +170,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
         const sh = lateSame ? (decays ? 'partial' : 'step') : decays ? 'transient' : 'unclear';
         shape.push(sh);
         reason.push(
-          `${up ? '+' : ''}${r.deltaHz.toPrecision(3)} Hz after the jump: ${stats} < ${a}; ${sh} (late change ${r.lateDeltaHz.toPrecision(3)} Hz, p ${formatP(r.lateP)}; decay p ${formatP(r.decayP)})`,
+          `${r.deltaHz >= 0 ? '+' : ''}${r.deltaHz.toPrecision(3)} Hz after the jump: ${stats} < ${a}; ${sh} (late change ${r.lateDeltaHz.toPrecision(3)} Hz, p ${formatP(r.lateP)}; decay p ${formatP(r.decayP)})`,
         );
       } else {
         verdict.push('none');

@@ -84,7 +84,7 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
       if (q[u] < params.alpha && r.direction !== 0) {
         const up = r.direction > 0;
         verdict.push(up ? 'up' : 'down');
-        reason.push(`${up ? 'rises' : 'falls'} ${Math.abs(r.slopeHzPerS).toPrecision(3)} Hz/s: ${stats} < ${params.alpha}${disp}`);
+        reason.push(`${up ? 'rises' : 'falls'} (slope ${r.slopeHzPerS >= 0 ? '+' : ''}${r.slopeHzPerS.toPrecision(3)} Hz/s): ${stats} < ${params.alpha}${disp}`);
       } else {
         verdict.push('flat');
         reason.push(`${stats} >= ${params.alpha}${disp}`);

@@ -73,7 +73,15 @@ export const rampStep: AnalysisStep = {
       },
       warnings:
         r.nTrials === 0 && recording.units.length > 0
-          ? [{ code: 'ramp-no-trials', message: `Ramp classification skipped: ${r.note}; every unit is reported flat.`, count: 1 }]
+          ? [{
+              code: 'ramp-no-trials',
+              message: `Ramp classification skipped: ${r.note}; every unit is reported flat.${
+                r.conditions.length > 0
+                  ? ` Conditions present: ${r.conditions.map((c) => c.condition).join(', ')}; set the parameter ramp.condition to one of them, or to "" for all trials.`
+                  : ''
+              }`,
+              count: 1,
+            }]
           : [],
     };
   },

@@ -74,4 +74,12 @@ describe('ramp, jump and cluster steps', () => {
     expect(r.warnings.map((w) => w.code)).toContain('ramp-no-trials');
     expect((r.summaries as Record<string, Record<string, unknown>>).jump.note).toBe('no "jump" events');
   });
+
+  it('names the conditions present when the reference condition has no trials', () => {
+    const other = taskSession({ nTrials: 20, standardLabel: 'A', otherConditions: [{ label: 'B', fraction: 0.5 }], units: [{ rateHz: 5, shape: 1 }], seed: 102 });
+    const r = analyseRecording(other, DEFAULTS);
+    const w = r.warnings.find((x) => x.code === 'ramp-no-trials')!;
+    expect(w.message).toContain('no "reward" events in trials of condition "standard"');
+    expect(w.message).toContain('Conditions present: A, B');
+  });
 });
