@@ -1,7 +1,10 @@
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+
+// The light analysis inside export/report is heavy; busy CI machines need room (no timing is asserted).
+vi.setConfig({ testTimeout: 300_000, hookTimeout: 300_000 });
 import { readDelimitedTable } from '../../../../core/export/read-delimited-table';
 import { readTableJson } from '../../../../core/export/read-table-json';
 import { CONTRACT_COLUMNS } from '../../../../core/table/contract-columns';
