@@ -177,6 +177,13 @@ describe.sequential('workbench in a real browser', () => {
     const head = readFileSync((await curated.path())!, 'utf8').split('\n')[0].split(',');
     expect(head).toContain('final_tag');
     expect(head).toContain('included');
+    // The HTML report: one file with the cautions, every unit and the plotting library inline.
+    const [rep] = await Promise.all([wb.page.waitForEvent('download', { timeout: 600_000 }), wb.page.getByTestId('export-report').click()]);
+    const html = readFileSync((await rep.path())!, 'utf8');
+    expect(html.startsWith('<!doctype html>') || html.startsWith('<!DOCTYPE html>')).toBe(true);
+    expect(html).toContain('tagbench report: demo');
+    expect(html).toMatch(/statistical screen/);
+    for (const id of counts.keys()) expect(html).toContain(id);
     expect(wb.pageErrors).toEqual([]);
   }, LONG);
 
