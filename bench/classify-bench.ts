@@ -3,7 +3,8 @@
  * session size of DESIGN.md section 7: 1,000 units, 2 h, ~20 M spikes,
  * 600 trials (30 % probe trials with a forward or backward jump).
  * Spike trains are stationary gamma renewal trains (rates log-normal around
- * 2.8 Hz); timing does not depend on the responses. Prints milliseconds.
+ * 2.8 Hz); timing does not depend on the responses. Prints wall-clock and
+ * CPU milliseconds (CPU time is the fairer figure on a shared machine).
  *
  * Run: npx tsx bench/classify-bench.ts
  */
@@ -53,10 +54,13 @@ function session(): Recording {
   };
 }
 
+/** Prints wall-clock and CPU time (CPU time is the fairer figure on a shared, loaded machine). */
 function time<T>(label: string, f: () => T): T {
   const t0 = performance.now();
+  const c0 = process.cpuUsage();
   const out = f();
-  console.log(`${label.padEnd(34)} ${(performance.now() - t0).toFixed(0).padStart(7)} ms`);
+  const c = process.cpuUsage(c0);
+  console.log(`${label.padEnd(34)} ${(performance.now() - t0).toFixed(0).padStart(7)} ms wall ${((c.user + c.system) / 1000).toFixed(0).padStart(7)} ms cpu`);
   return out;
 }
 

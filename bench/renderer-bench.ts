@@ -65,7 +65,8 @@ async function openToTable(page: Page, url: string): Promise<number> {
   await page.getByTestId('open-demo').waitFor({ timeout: 300_000 });
   const t0 = Date.now();
   await page.getByTestId('open-demo').click();
-  await page.locator('.facts').waitFor({ timeout: 600_000 });
+  await page.locator('.facts, .error-screen').first().waitFor({ timeout: 600_000 });
+  if (await page.locator('.error-screen').count()) throw new Error(`the session did not open: ${await page.locator('.error-screen').innerText()}`);
   const opened = Date.now() - t0;
   await page.getByRole('button', { name: 'Unit table' }).click();
   await page.locator('.trow').first().waitFor();

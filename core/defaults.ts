@@ -101,6 +101,12 @@ export const DEFAULTS = {
     minTrials: 6,
     /** Largest trial count for the exact signed-rank distribution; above it the normal approximation (common practice). */
     exactMaxN: 30,
+    /**
+     * Start anchor of a time-warped window ("" = the fixed window above): when set (e.g.
+     * "sweep_on"), each trial's stretch from this event to `event` is warped onto the median
+     * duration and cut into bins of about binS; slopes are then per template second.
+     */
+    anchorEvent: '',
   },
   /** Transient answers to task-state jumps (DESIGN.md section 4; issue 5). */
   jump: {

@@ -56,6 +56,7 @@ export default defineConfig({
   root: here,
   base: './',
   publicDir: false,
+  define: { __TAGBENCH_VERSION__: JSON.stringify((JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { version: string }).version) },
   plugins: [react(), demoAssets()],
   worker: { format: 'es' },
   build: {
@@ -64,5 +65,6 @@ export default defineConfig({
     target: 'es2022',
     chunkSizeWarningLimit: 6000,
     reportCompressedSize: false,
+    rolldownOptions: { checks: { pluginTimings: false } },
   },
 });

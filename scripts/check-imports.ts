@@ -21,6 +21,8 @@ export const CORE_PACKAGES = ['ml-kmeans', 'ml-pca', 'simple-statistics'];
 export const NODE_PACKAGES = [...CORE_PACKAGES, 'h5wasm', 'h5wasm/node'];
 export const ELECTRON_PACKAGES = [...NODE_PACKAGES, 'electron', 'vite'];
 export const RENDERER_PACKAGES = [...CORE_PACKAGES, 'react', 'react-dom', 'react-dom/client', 'react/jsx-runtime', 'plotly.js-dist-min', 'comlink', 'h5wasm'];
+/** The plotting library's source as text, embedded in the HTML report the app exports (loaded on demand). */
+RENDERER_PACKAGES.push('plotly.js-dist-min/plotly.min.js?raw');
 
 type Area = 'core' | 'core/node' | 'electron' | 'electron/common' | 'renderer';
 

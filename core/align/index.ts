@@ -22,3 +22,4 @@ export { unwarpTime } from './unwarp-time';
 export { warpSpikes } from './warp-spikes';
 export { warpedPsth, type WarpedPsth } from './warped-psth';
 export { eventResponse, type EventResponse, type EventResponseRequest, type ResponseGroup } from './event-response';
+export { warpedResponse, type WarpedResponse } from './warped-response';

@@ -1,4 +1,4 @@
-import { binCounts } from '../align/bin-counts';
+import { addEventCounts } from './add-event-counts';
 import { countInWindow } from '../align/count-in-window';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
@@ -133,8 +133,9 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
           }
         }
       }
-      const counts = binCounts(st, times, psthStartS, binS, nPsth);
-      for (let e = 0; e < n; e++) for (let j = 0; j < nPsth; j++) psth[j] += counts[e * nPsth + j] / (binS * n);
+      const counts = new Float64Array(nPsth);
+      addEventCounts(st, times, psthStartS, binS, nPsth, counts);
+      for (let j = 0; j < nPsth; j++) psth[j] += counts[j] / (binS * n);
       if (u === 0) controlledCount[g] = controlled;
       perKindUnits[g].push(
         jumpUnit(
@@ -169,7 +170,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
         const sh = lateSame ? (decays ? 'partial' : 'step') : decays ? 'transient' : 'unclear';
         shape.push(sh);
         reason.push(
-          `${up ? '+' : ''}${r.deltaHz.toPrecision(3)} Hz after the jump: ${stats} < ${a}; ${sh} (late change ${r.lateDeltaHz.toPrecision(3)} Hz, p ${formatP(r.lateP)}; decay p ${formatP(r.decayP)})`,
+          `${r.deltaHz >= 0 ? '+' : ''}${r.deltaHz.toPrecision(3)} Hz after the jump: ${stats} < ${a}; ${sh} (late change ${r.lateDeltaHz.toPrecision(3)} Hz, p ${formatP(r.lateP)}; decay p ${formatP(r.decayP)})`,
         );
       } else {
         verdict.push('none');

@@ -1,11 +1,10 @@
-import { binCounts } from '../align/bin-counts';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { benjaminiHochberg } from '../stats/benjamini-hochberg';
 import { mannWhitney } from '../stats/mann-whitney';
 import { formatP } from './format-p';
 import { rampUnit, type RampUnitResult } from './ramp-unit';
-import { selectEvents } from './select-events';
+import { rampCounts, rampPlan } from './ramp-plan';
 
 /** Per-condition ramp slopes, one entry per condition label present among the trials. */
 export interface ConditionRamps {
@@ -29,6 +28,8 @@ export interface RampClassification {
   /** How the trials were chosen (e.g. `no "reward" events`). */
   readonly note: string;
   readonly nTrials: number;
+  /** "fixed" window around the event, or "warped" from the anchor event to it. */
+  readonly mode: 'fixed' | 'warped';
 }
 
 /**
@@ -44,20 +45,21 @@ export interface RampClassification {
  * independent between conditions; no correction across units or conditions,
  * read them as descriptive unless you correct).
  *
+ * With anchorEvent set, the window is each trial's stretch from that event
+ * to the ramp event, time-warped (rampPlan); otherwise the fixed window.
  * Sessions without the event, or with fewer than minTrials trials: every unit
  * is flat with the reason, numbers NaN.
  */
 export function classifyRamps(recording: Recording, params: Parameters['ramp']): RampClassification {
-  const { windowStartS, windowEndS, binS } = params;
-  const nBins = Math.max(1, Math.round((windowEndS - windowStartS) / binS));
-  const centresS = Float64Array.from({ length: nBins }, (_, j) => windowStartS + (j + 0.5) * binS);
-  const sel = selectEvents(recording, params.event, params.condition);
+  const plan = rampPlan(recording, params, params.condition);
+  const { centresS } = plan;
   const nUnits = recording.units.length;
   const units: RampUnitResult[] = [];
   const p = new Float64Array(nUnits);
+  const buffer = new Float64Array(plan.nTrials * centresS.length);
   for (let u = 0; u < nUnits; u++) {
-    const counts = binCounts(recording.units[u].spikeTimes, sel.times, windowStartS, binS, nBins);
-    const r = rampUnit(counts, sel.times.length, centresS, binS, params.minTrials, params.exactMaxN);
+    const c = rampCounts(recording.units[u].spikeTimes, plan, buffer);
+    const r = rampUnit(c.counts, plan.nTrials, centresS, plan.binS, params.minTrials, params.exactMaxN, c.exposureS);
     units.push(r);
     p[u] = r.p;
   }
@@ -66,9 +68,9 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   const reason: string[] = [];
   for (let u = 0; u < nUnits; u++) {
     const r = units[u];
-    if (sel.times.length === 0) {
+    if (plan.nTrials === 0) {
       verdict.push('flat');
-      reason.push(sel.note);
+      reason.push(plan.note);
     } else if (!(r.p === r.p)) {
       verdict.push('flat');
       reason.push(
@@ -82,7 +84,7 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
       if (q[u] < params.alpha && r.direction !== 0) {
         const up = r.direction > 0;
         verdict.push(up ? 'up' : 'down');
-        reason.push(`${up ? 'rises' : 'falls'} ${Math.abs(r.slopeHzPerS).toPrecision(3)} Hz/s: ${stats} < ${params.alpha}${disp}`);
+        reason.push(`${up ? 'rises' : 'falls'} (slope ${r.slopeHzPerS >= 0 ? '+' : ''}${r.slopeHzPerS.toPrecision(3)} Hz/s): ${stats} < ${params.alpha}${disp}`);
       } else {
         verdict.push('flat');
         reason.push(`${stats} >= ${params.alpha}${disp}`);
@@ -90,36 +92,30 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
     }
   }
 
-  // Per-condition slopes and their difference from the reference condition.
+  // Per-condition slopes and their difference from the reference condition
+  // (warped windows use the reference template, so slopes compare per reference second).
   const conditions: ConditionRamps[] = [];
   const labels = [...new Set(recording.trials.condition.filter((c) => c !== ''))].sort();
-  if (labels.length > 0) {
-    const all = selectEvents(recording, params.event, null);
-    const byCondition = new Map<string, number[]>();
-    all.conditions.forEach((c, i) => {
-      if (c === '') return;
-      if (!byCondition.has(c)) byCondition.set(c, []);
-      byCondition.get(c)!.push(all.times[i]);
-    });
-    const refTimes = params.condition !== '' && byCondition.has(params.condition) ? Float64Array.from(byCondition.get(params.condition)!) : null;
-    for (const c of labels) {
-      const times = Float64Array.from(byCondition.get(c) ?? []);
-      const slope = new Float64Array(nUnits).fill(NaN);
-      const diffP = new Float64Array(nUnits).fill(NaN);
+  const hasReference = params.condition !== '' && labels.includes(params.condition) && plan.nTrials > 0;
+  for (const c of labels) {
+    const isReference = c === params.condition && plan.nTrials > 0;
+    const cp = isReference ? plan : rampPlan(recording, params, c, plan.template ?? undefined);
+    const cBuffer = new Float64Array(cp.nTrials * cp.centresS.length);
+    const slope = new Float64Array(nUnits).fill(NaN);
+    const diffP = new Float64Array(nUnits).fill(NaN);
+    if (cp.nTrials > 0 && cp.centresS.length === centresS.length) {
       for (let u = 0; u < nUnits; u++) {
-        if (times.length === 0) continue;
-        const st = recording.units[u].spikeTimes;
-        const r =
-          c === params.condition && sel.times.length === times.length
-            ? units[u]
-            : rampUnit(binCounts(st, times, windowStartS, binS, nBins), times.length, centresS, binS, Infinity);
+        const r = isReference
+          ? units[u]
+          : (() => {
+              const k = rampCounts(recording.units[u].spikeTimes, cp, cBuffer);
+              return rampUnit(k.counts, cp.nTrials, cp.centresS, cp.binS, Infinity, params.exactMaxN, k.exposureS);
+            })();
         slope[u] = r.slopeHzPerS;
-        if (refTimes && c !== params.condition && times.length >= 2 && refTimes.length >= 2) {
-          diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;
-        }
+        if (hasReference && !isReference && cp.nTrials >= 2 && plan.nTrials >= 2) diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;
       }
-      conditions.push({ condition: c, nTrials: times.length, slopeHzPerS: slope, diffP });
     }
+    conditions.push({ condition: c, nTrials: cp.nTrials, slopeHzPerS: slope, diffP });
   }
-  return { verdict, reason, q, units, conditions, centresS, note: sel.note, nTrials: sel.times.length };
+  return { verdict, reason, q, units, conditions, centresS, note: plan.note, nTrials: plan.nTrials, mode: plan.mode };
 }

@@ -11,3 +11,5 @@ export { columnSafe } from './column-safe';
 export { rampStep } from './ramp-step';
 export { jumpStep } from './jump-step';
 export { clusterStep } from './cluster-step';
+export { rampPlan, rampCounts, type RampPlan } from './ramp-plan';
+export { addEventCounts } from './add-event-counts';

@@ -62,7 +62,8 @@ export const rampStep: AnalysisStep = {
         condition: rp.condition,
         trials: r.nTrials,
         selection: r.note,
-        windowS: [rp.windowStartS, rp.windowEndS],
+        window: r.mode === 'warped' ? `"${rp.anchorEvent}" to "${rp.event}", time-warped` : 'fixed',
+        windowS: r.mode === 'warped' ? [r.centresS[0] - (r.centresS[1] - r.centresS[0]) / 2, 0] : [rp.windowStartS, rp.windowEndS],
         binS: rp.binS,
         alpha: rp.alpha,
         up: count('up'),
@@ -72,7 +73,15 @@ export const rampStep: AnalysisStep = {
       },
       warnings:
         r.nTrials === 0 && recording.units.length > 0
-          ? [{ code: 'ramp-no-trials', message: `Ramp classification skipped: ${r.note}; every unit is reported flat.`, count: 1 }]
+          ? [{
+              code: 'ramp-no-trials',
+              message: `Ramp classification skipped: ${r.note}; every unit is reported flat.${
+                r.conditions.length > 0
+                  ? ` Conditions present: ${r.conditions.map((c) => c.condition).join(', ')}; set the parameter ramp.condition to one of them, or to "" for all trials.`
+                  : ''
+              }`,
+              count: 1,
+            }]
           : [],
     };
   },

@@ -38,20 +38,25 @@ export interface RampUnitResult {
 }
 
 /**
- * Ramp statistics from peri-event counts (trials x bins, row-major), bins of
- * binS seconds whose centres are `centresS` (s relative to the event).
+ * Ramp statistics from peri-event counts (trials x bins, row-major) with bin
+ * centres `centresS` (s relative to the event). Each trial-bin covers binS
+ * seconds of real time, or `exposureS` (same shape) when given: a
+ * time-warped bin covers a different real time in each trial.
  *
- * 1. Per trial: least-squares slope of rate (count / binS) on time.
+ * 1. Per trial: least-squares slope of rate (count / exposure) on time.
  * 2. Two-sided Wilcoxon signed-rank test of the per-trial slopes against 0
  *    (trials are the replicates, so trial-to-trial variability and
  *    overdispersion are respected); run only with >= minTrials trials.
- * 3. Effect sizes from the trial-averaged rate: slope (Hz/s), slope relative
- *    to the mean rate, R^2 of its straight-line fit, late/early third ratio.
- * 4. Poisson GLM, log rate linear in time, fitted to the counts of all
- *    trial-bins (aggregated per bin: the likelihood depends on the per-bin
- *    totals only); likelihood-ratio test on 1 df; Pearson X^2/df computed over
- *    every trial-bin from per-bin sums of counts and squared counts. The LRT
- *    assumes Poisson counts: a dispersion well above 1 means its p is too small.
+ * 3. Effect sizes from the trial-averaged rate (pooled count / pooled
+ *    exposure per bin): slope (Hz/s; with uniform bins this equals the mean
+ *    per-trial slope), slope relative to the mean rate, R^2 of its
+ *    straight-line fit, late/early third ratio.
+ * 4. Poisson GLM, log rate linear in time, mu = exposure exp(a + b t), on all
+ *    trial-bins; the likelihood depends on the per-bin totals of counts and
+ *    exposure only, so it is fitted to those (offset log exposure);
+ *    likelihood-ratio test on 1 df; Pearson X^2/df over every trial-bin from
+ *    per-bin sums of y, e and y^2/e. The LRT assumes Poisson counts: a
+ *    dispersion well above 1 means its p is too small.
  *
  * exactMaxN: largest trial count for the exact signed-rank distribution.
  */
@@ -62,38 +67,64 @@ export function rampUnit(
   binS: number,
   minTrials: number,
   exactMaxN = 30,
+  exposureS?: Float64Array,
 ): RampUnitResult {
   const nBins = centresS.length;
+  const trialSlopes = new Float64Array(nTrials);
+  const s1 = new Float64Array(nBins); // sum of counts
+  const se = new Float64Array(nBins); // sum of exposure
+  const sq = new Float64Array(nBins); // sum of count^2 / exposure
+  const sr = new Float64Array(nBins); // sum of per-trial rates
+  const sr2 = new Float64Array(nBins); // sum of squared per-trial rates
+  let total = 0;
+  let totalE = 0;
   let mx = 0;
   for (let j = 0; j < nBins; j++) mx += centresS[j];
   mx /= nBins;
   let sxx = 0;
   for (let j = 0; j < nBins; j++) sxx += (centresS[j] - mx) ** 2;
-  const trialSlopes = new Float64Array(nTrials);
-  const s1 = new Float64Array(nBins);
-  const s2 = new Float64Array(nBins);
-  let total = 0;
+  let sjj = 0;
+  for (let j = 0; j < nBins; j++) sjj += (j - (nBins - 1) / 2) ** 2;
+  const rate = new Float64Array(nBins);
   for (let k = 0; k < nTrials; k++) {
     const row = k * nBins;
-    let sxy = 0;
+    let my = 0;
     for (let j = 0; j < nBins; j++) {
       const c = counts[row + j];
-      sxy += (centresS[j] - mx) * c;
+      const e = exposureS ? exposureS[row + j] : binS;
+      const r = e > 0 ? c / e : 0;
+      rate[j] = r;
+      my += r;
       s1[j] += c;
-      s2[j] += c * c;
+      se[j] += e;
+      if (e > 0) sq[j] += (c * c) / e;
+      sr[j] += r;
+      sr2[j] += r * r;
       total += c;
+      totalE += e;
     }
-    trialSlopes[k] = sxy / sxx / binS;
+    my /= nBins;
+    if (exposureS) {
+      let sxy = 0;
+      for (let j = 0; j < nBins; j++) sxy += (centresS[j] - mx) * (rate[j] - my);
+      trialSlopes[k] = sxy / sxx;
+    } else {
+      // Equal bins: integer weights 2j - (nBins - 1) keep the numerator exact, so
+      // trials whose slopes are equal in exact arithmetic tie exactly (ties matter to ranks).
+      let w = 0;
+      for (let j = 0; j < nBins; j++) w += (2 * j - (nBins - 1)) * counts[row + j];
+      trialSlopes[k] = w / (2 * binS * binS * sjj);
+    }
   }
   const meanRate = new Float64Array(nBins);
   const semRate = new Float64Array(nBins);
   for (let j = 0; j < nBins; j++) {
-    const m = s1[j] / nTrials;
-    meanRate[j] = m / binS;
-    const v = nTrials > 1 ? (s2[j] - nTrials * m * m) / (nTrials - 1) : NaN;
-    semRate[j] = Math.sqrt(Math.max(0, v) / nTrials) / binS;
+    meanRate[j] = se[j] > 0 ? s1[j] / se[j] : NaN;
+    const m = sr[j] / nTrials;
+    const v = nTrials > 1 ? (sr2[j] - nTrials * m * m) / (nTrials - 1) : NaN;
+    semRate[j] = Math.sqrt(Math.max(0, v) / nTrials);
   }
-  const meanRateHz = nTrials > 0 ? total / (nTrials * nBins * binS) : NaN;
+  const meanRateHz = nTrials > 0 && totalE > 0 ? total / totalE : NaN;
   const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate) : null;
   const third = Math.max(1, Math.floor(nBins / 3));
   let early = 0;
@@ -104,27 +135,25 @@ export function rampUnit(
   }
   const test = nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
 
-  // Poisson GLM on per-bin totals (weights = trials, y = mean count per trial-bin).
   let glmSlopePerS = NaN;
   let glmLrtP = NaN;
   let glmDispersion = NaN;
   if (nTrials > 0 && total > 0 && nBins >= 2) {
     const X = new Float64Array(nBins * 2);
-    const y = new Float64Array(nBins);
-    const w = new Float64Array(nBins).fill(nTrials);
+    const offset = new Float64Array(nBins);
     for (let j = 0; j < nBins; j++) {
       X[2 * j] = 1;
       X[2 * j + 1] = centresS[j] - mx;
-      y[j] = s1[j] / nTrials;
+      offset[j] = Math.log(se[j]);
     }
-    const g = poissonGlm(X, 2, y, { weights: w });
+    const g = poissonGlm(X, 2, s1, { offset });
     if (g.converged) {
       glmSlopePerS = g.coefficients[1];
       glmLrtP = chiSquareSf(Math.max(0, g.nullDeviance - g.deviance), 1);
       let x2 = 0;
       for (let j = 0; j < nBins; j++) {
-        const mu = g.fitted[j];
-        x2 += (s2[j] - 2 * mu * s1[j] + nTrials * mu * mu) / mu;
+        const lambda = g.fitted[j] / se[j];
+        x2 += sq[j] / lambda - 2 * s1[j] + lambda * se[j];
       }
       const df = nTrials * nBins - 2;
       glmDispersion = df > 0 ? x2 / df : NaN;

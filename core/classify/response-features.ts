@@ -1,4 +1,4 @@
-import { binCounts } from '../align/bin-counts';
+import { addEventCounts } from './add-event-counts';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { selectEvents } from './select-events';
@@ -57,9 +57,8 @@ export function responseFeatures(recording: Recording, params: Parameters): Resp
   for (let u = 0; u < n; u++) {
     const st = recording.units[u].spikeTimes;
     sources.forEach((s, g) => {
-      const c = binCounts(st, s.times, s.startS, binS, s.nBins);
       const o = u * dim + segments[g].offset;
-      for (let e = 0; e < s.times.length; e++) for (let b = 0; b < s.nBins; b++) rates[o + b] += c[e * s.nBins + b];
+      addEventCounts(st, s.times, s.startS, binS, s.nBins, rates, o);
       for (let b = 0; b < s.nBins; b++) rates[o + b] /= s.times.length * binS;
     });
   }

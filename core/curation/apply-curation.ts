@@ -1,7 +1,7 @@
 import { assembleTable } from '../table/assemble-table';
 import type { Column, UnitTable } from '../table/types';
 import type { CurationState } from './types';
-import { verdictWords } from './verdict-words';
+import { verdictColumns } from './verdict-columns';
 
 /** Curation columns appended after every computed column, in this order. */
 export const CURATION_COLUMNS = ['included', 'note', 'curated', 'curated_by', 'curated_at'] as const;
@@ -28,8 +28,7 @@ export function applyCuration(table: UnitTable, curation: CurationState): { tabl
   const orphans = Object.keys(curation.units).filter((u) => !present.has(u)).sort();
   const n = table.rowCount;
   const added: Column[] = [];
-  for (const c of table.columns) {
-    if (c.kind !== 'string' || !verdictWords(c.name)) continue;
+  for (const c of verdictColumns(table)) {
     const vals = ids.map((id, r) => curation.units[id]?.labels[c.name]?.value ?? c.values[r]);
     added.push({ name: `final_${c.name}`, kind: 'string', values: vals, description: `Final ${c.name}: the person's label where set, else the computed ${c.name}` });
   }

@@ -12,3 +12,4 @@ export { SESSION_FORMAT, SESSION_SCHEMA_VERSION, type SessionFile } from './sess
 export { validateSessionFile } from './validate-session-file';
 export { verdictWords } from './verdict-words';
 export { newSessionFile } from './new-session-file';
+export { verdictColumns } from './verdict-columns';

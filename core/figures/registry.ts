@@ -10,7 +10,11 @@ import { lightFollowingFigure } from './light/light-following';
 import { lightLatencyFigure } from './light/light-latency';
 import { lightRasterFigure } from './light/light-raster';
 import { lightWaveformFigure } from './light/light-waveform';
+import { indicatorUnitFigure } from './indicator-unit-figure';
 import type { PopulationFigure, UnitFigure } from './types';
+import { rampFitFigure } from './classify/ramp-fit-figure';
+import { jumpAnswersFigure } from './classify/jump-answers-figure';
+import { clusterAveragesFigure } from './classify/cluster-averages-figure';
 
 /**
  * Every figure the app, the exports and the HTML report can draw, in display
@@ -20,24 +24,31 @@ import type { PopulationFigure, UnitFigure } from './types';
  * (test/core/figures/registry.test.ts checks).
  */
 export const UNIT_FIGURES: readonly UnitFigure[] = [
-  // quality
-  rateOverSessionFigure,
-  autocorrelogramFigure,
-  isiHistogramFigure,
-  waveformFigure,
   // light identification
   lightRasterFigure,
   lightLatencyFigure,
   lightFollowingFigure,
   lightWaveformFigure,
-  // alignment
+  // event response
   rasterPsthUnitFigure,
+  // ramps and jumps
+  rampFitFigure,
+  jumpAnswersFigure,
+  // indicator model
+  indicatorUnitFigure,
+  // quality
+  rateOverSessionFigure,
+  autocorrelogramFigure,
+  isiHistogramFigure,
+  waveformFigure,
 ];
 
 export const POPULATION_FIGURES: readonly PopulationFigure[] = [
   // quality and curation
   verdictCountsFigure,
   rateHeatmapFigure,
-  // alignment
+  // event response
   populationResponseFigure,
+  // response clusters
+  clusterAveragesFigure,
 ];

@@ -8,7 +8,8 @@
  * Units: all times in seconds (readers convert ms / samples before calling).
  *
  * Errors (InputError naming file, row or element, column, value, fix):
- *  - no spikes at all; a spike/pulse/event/trial time that is NaN or infinite;
+ *  - no spikes at all; an empty unit id; a spike/pulse/event/trial time that
+ *    is NaN or infinite;
  *  - a negative time (before 0 s, or before the span start when one is given);
  *  - a unit in the spike table unknown to the unit-info table (and duplicate
  *    unit-info rows); an event trial unknown to the trial table; duplicate
@@ -153,6 +154,10 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
 
   // ---- unit ids across files --------------------------------------------
   const nCodes = s.unitIds.length;
+  const emptyId = s.unitIds.indexOf('');
+  if (emptyId >= 0) {
+    throw new InputError({ ...where(s, s.unit.indexOf(emptyId)), column: s.columns.unit, problem: 'the unit id is empty', fix: 'give every spike its unit' });
+  }
   let unitOrder: string[];
   const codeToUnit = new Int32Array(nCodes);
   const info = t.unitInfo;

@@ -100,7 +100,8 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
   let decimalComma = false;
   let line = 1; // line number of the next record start
   let rowCount = 0;
-  let capacity = 0;
+  let capacity = 0; // rows that fit before a new block is needed
+  let blockBase = 0; // global row index of the current block's first row
   // line breakpoints: from record breakIdx[k] on, rowOf(i) = i + breakShift[k]
   const breakIdx: number[] = [0];
   const breakShift: number[] = [2];
@@ -111,6 +112,8 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
   let names: string[] = [];
   let numCols: (Float64Array | null)[] = [];
   let codeCols: (Int32Array | null)[] = [];
+  let numDone: Float64Array[][] = [];
+  let codeDone: Int32Array[][] = [];
   let textCols: (string[] | null)[] = [];
   let dicts: { list: string[]; byString: Map<string, number>; small: Int32Array; byNumber: Map<number, number> }[] = [];
 
@@ -129,6 +132,8 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
     allowEmpty = new Uint8Array(n);
     numCols = new Array(n).fill(null);
     codeCols = new Array(n).fill(null);
+    numDone = Array.from({ length: n }, () => []);
+    codeDone = Array.from({ length: n }, () => []);
     textCols = new Array(n).fill(null);
     dicts = new Array(n);
     const seen = new Map<string, number>();
@@ -155,20 +160,22 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
     grow(1024);
   }
 
-  function grow(min: number): void {
-    let cap = Math.max(capacity * 2, min, 1024);
+  /**
+   * Starts a new block of BLOCK rows for every numeric and code column (full
+   * blocks are kept in a list and joined once at finish(): no doubling copies).
+   */
+  function grow(_min: number): void {
     for (let i = 0; i < kinds.length; i++) {
       if (kinds[i] === K_NUMBER) {
-        const a = new Float64Array(cap);
-        if (numCols[i]) a.set(numCols[i]!.subarray(0, rowCount));
-        numCols[i] = a;
+        if (numCols[i]) numDone[i].push(numCols[i]!);
+        numCols[i] = new Float64Array(BLOCK);
       } else if (kinds[i] === K_CODE) {
-        const a = new Int32Array(cap);
-        if (codeCols[i]) a.set(codeCols[i]!.subarray(0, rowCount));
-        codeCols[i] = a;
+        if (codeCols[i]) codeDone[i].push(codeCols[i]!);
+        codeCols[i] = new Int32Array(BLOCK);
       } else if (kinds[i] === K_TEXT && !textCols[i]) textCols[i] = [];
     }
-    capacity = cap;
+    if (capacity > 0) blockBase += BLOCK;
+    capacity = blockBase + BLOCK;
   }
 
   /** Interns field bytes [s, e) of fieldBuf into column i's dictionary. */
@@ -249,7 +256,7 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         nums = numCols;
         cods = codeCols;
       }
-      const row = rowCount;
+      const row = rowCount - blockBase; // slot in the current block
       let col = 0;
       let complete = false;
       // blank line?
@@ -457,7 +464,7 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         } else if (kind === K_CODE) {
           codeCols[col]![row] = intern(col, b, fieldStart, fieldEnd);
         } else if (kind === K_TEXT) {
-          textCols[col]![row] = decodeUtf8(b, fieldStart, fieldEnd);
+          textCols[col]![rowCount] = decodeUtf8(b, fieldStart, fieldEnd);
         }
         col++;
         if (c === delim) {
@@ -478,16 +485,16 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         // a line holding one empty field is a blank line (e.g. spaces only)
         const k = kinds[0];
         const empty =
-          k === K_TEXT ? textCols[0]![row] === '' : k === K_CODE ? dicts[0].list[codeCols[0]![row]] === '' : k === K_NUMBER ? numCols[0]![row] !== numCols[0]![row] : isBlank(buf, recStart, pos);
+          k === K_TEXT ? textCols[0]![rowCount] === '' : k === K_CODE ? dicts[0].list[codeCols[0]![row]] === '' : k === K_NUMBER ? numCols[0]![row] !== numCols[0]![row] : isBlank(buf, recStart, pos);
         if (empty) {
           line += 1 + newlines;
           continue;
         }
       }
       if (col !== nCols) fail(recLine, undefined, undefined, `this row has ${col} field(s) but the header has ${nCols}`, 'give every row one value per column (empty cells are allowed)');
-      if (recLine !== row + breakShift[breakShift.length - 1]) {
-        breakIdx.push(row);
-        breakShift.push(recLine - row);
+      if (recLine !== rowCount + breakShift[breakShift.length - 1]) {
+        breakIdx.push(rowCount);
+        breakShift.push(recLine - rowCount);
       }
       rowCount++;
       line += 1 + newlines;
@@ -621,8 +628,8 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
       const ignored: string[] = [];
       names.forEach((name, i) => {
         const k = kinds[i];
-        if (k === K_NUMBER) numbers.set(name, numCols[i]!.slice(0, rowCount));
-        else if (k === K_CODE) codes.set(name, { codes: codeCols[i]!.slice(0, rowCount), dictionary: dicts[i].list });
+        if (k === K_NUMBER) numbers.set(name, join(new Float64Array(rowCount), numDone[i], numCols[i]!, rowCount - blockBase));
+        else if (k === K_CODE) codes.set(name, { codes: join(new Int32Array(rowCount), codeDone[i], codeCols[i]!, rowCount - blockBase), dictionary: dicts[i].list });
         else if (k === K_TEXT) {
           const t = textCols[i]!;
           t.length = rowCount;
@@ -630,6 +637,11 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
           else extra.set(name, numericIfAll(t));
         } else if (name !== '') ignored.push(name);
       });
+      // drop the blocks now joined, so they can be collected while the table lives on
+      numDone = [];
+      codeDone = [];
+      numCols = [];
+      codeCols = [];
       const bi = breakIdx.slice();
       const bs = breakShift.slice();
       return {
@@ -656,6 +668,19 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
     },
   };
 
+}
+
+/** Rows per column block. */
+const BLOCK = 1 << 16;
+
+function join<T extends Float64Array | Int32Array>(out: T, full: T[], last: T, lastRows: number): T {
+  let o = 0;
+  for (const b of full) {
+    out.set(b, o);
+    o += b.length;
+  }
+  out.set(last.subarray(0, lastRows), o);
+  return out;
 }
 
 function growScratch(a: Uint8Array, min: number): Uint8Array {

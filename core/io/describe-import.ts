@@ -97,6 +97,10 @@ export function describeImport(r: ImportResult): string {
     const r2 = rec.raw;
     out.push(`Raw voltage: ${r2.file}, ${r2.channelCount} channels at ${s(r2.sampleRateHz)} Hz, ${n(r2.frameCount)} frames (${duration(r2.frameCount / r2.sampleRateHz)}) from ${s(r2.startS)} s, ${s(r2.gainUvPerBit)} uV per bit`);
   }
+  // Session metadata from the inputs (e.g. NWB identifier, stimulus site) and NWB observation intervals.
+  if (rec.meta && Object.keys(rec.meta).length) out.push(`Session metadata: ${Object.entries(rec.meta).map(([k, v]) => `${k} = ${v}`).join('; ')}`);
+  const observed = rec.units.filter((u) => u.observedIntervals);
+  if (observed.length) out.push(`  observation intervals: ${observed.length} units (${observed.filter((u) => u.observedIntervals!.length > 2).length} with gaps)`);
   if (r.warnings.length === 0) out.push('Warnings: none');
   else {
     out.push(`Warnings: ${r.warnings.length}`);

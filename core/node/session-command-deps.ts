@@ -1,7 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { userInfo } from 'node:os';
+import { loadSession } from './load-session';
 import type { ImportSource } from './open-session';
+import { toolVersion } from './tool-version';
 
 /**
  * What the session commands (curate, export, report) need from the outside
@@ -33,4 +35,15 @@ export function loginName(): string {
 export function readPlotlySource(): string {
   const require = createRequire(import.meta.url);
   return readFileSync(require.resolve('plotly.js-dist-min/plotly.min.js'), 'utf8');
+}
+
+/** The real dependencies: the import area's loader, package.json's version, the clock, the login name. */
+export function defaultSessionDeps(): SessionCommandDeps {
+  return {
+    importSource: (path) => loadSession(path),
+    toolVersion: toolVersion(),
+    now: () => new Date(),
+    user: loginName,
+    plotlySource: readPlotlySource,
+  };
 }

@@ -1,6 +1,7 @@
 import type { AnalysisStep } from '../pipeline/types';
 import type { Column } from '../table/types';
 import { QUALITY_VERDICTS, qualityVerdict } from './quality-verdict';
+import { lightWindows } from './light-windows';
 import { unitQuality } from './unit-quality';
 
 /**
@@ -29,8 +30,10 @@ export const qualityStep: AnalysisStep = {
     const reasons: string[] = [];
     const counts: Record<string, number> = Object.fromEntries(QUALITY_VERDICTS.map((v) => [v, 0]));
     let atLeastHalf = 0;
+    // light-evoked spikes (the light test window after each pulse) do not count as drift
+    const light = lightWindows(recording.pulses.onset, parameters.light.windowStartMs, parameters.light.windowEndMs);
     recording.units.forEach((u, i) => {
-      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz);
+      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, light);
       cols.isiCount[i] = m.isiViolationCount;
       cols.isiFrac[i] = m.isiViolationFraction;
       cols.cont[i] = m.contamination;
@@ -56,7 +59,7 @@ export const qualityStep: AnalysisStep = {
         num('presence_ratio', cols.presence, `Fraction of ${q.presenceBins} equal time bins holding a spike`),
         num('lv', cols.lv, 'Local variation of ISIs, Shinomoto et al. (2003); 1 for Poisson'),
         num('cv2', cols.cv2, 'CV2 of adjacent ISIs, Holt et al. (1996); 1 for Poisson'),
-        num('rate_drift_cv', cols.driftCv, `Coefficient of variation of the rate over ${q.driftSegments} equal segments of the span`),
+        num('rate_drift_cv', cols.driftCv, `Coefficient of variation of the rate over ${q.driftSegments} equal segments of the span (light test windows after pulses left out)`),
         num('rate_slope_hz_per_min', cols.slope, 'Least-squares slope of segment rates over time, Hz per minute'),
         num('trough_to_peak_ms', cols.ttp, 'Mean waveform trough-to-peak duration, ms (empty without waveforms)'),
         num('half_width_ms', cols.hw, 'Mean waveform trough width at half depth, ms (empty without waveforms)'),

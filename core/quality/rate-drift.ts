@@ -12,8 +12,13 @@
  *   drifts away from it). Rounding noise of a flat rate is written as 0.
  *
  * Segment choice: our own (no published standard); 10 segments by default.
- * NaN metrics when the span is empty, fewer than 2 segments, or (cv) the
- * mean rate is 0. Single pass over sorted spikes.
+ * `exclude` (sorted, non-overlapping intervals, e.g. lightWindows) removes
+ * both the spikes inside the intervals and the intervals' time from each
+ * segment, so a segment's rate is that of the remaining time. A segment
+ * with less than 1 % of its time left gets a NaN rate and is left out of
+ * cv and slope. NaN metrics when the span is empty, fewer than 2 segments
+ * have a rate, or (cv) the mean rate is 0. Single pass over sorted spikes
+ * and intervals.
  */
 export interface RateDrift {
   /** Rate in each segment, Hz. */
@@ -24,7 +29,13 @@ export interface RateDrift {
   readonly slopeHzPerMin: number;
 }
 
-export function rateDrift(spikeTimes: ArrayLike<number>, startS: number, stopS: number, nSegments: number): RateDrift {
+export function rateDrift(
+  spikeTimes: ArrayLike<number>,
+  startS: number,
+  stopS: number,
+  nSegments: number,
+  exclude?: { readonly startS: ArrayLike<number>; readonly stopS: ArrayLike<number> },
+): RateDrift {
   const k = Math.floor(nSegments);
   const len = stopS - startS;
   if (!(len > 0) || !(k >= 2)) {
@@ -32,34 +43,60 @@ export function rateDrift(spikeTimes: ArrayLike<number>, startS: number, stopS: 
   }
   const width = len / k;
   const counts = new Float64Array(k);
+  const kept = new Float64Array(k).fill(width);
+  const xs = exclude?.startS ?? [];
+  const xe = exclude?.stopS ?? [];
+  // time removed from each segment by the excluded intervals
+  for (let j = 0; j < xs.length; j++) {
+    const a = Math.max(startS, xs[j]);
+    const b = Math.min(stopS, xe[j]);
+    if (!(b > a)) continue;
+    const first = Math.min(k - 1, Math.floor((a - startS) / width));
+    const last = Math.min(k - 1, Math.floor((b - startS) / width));
+    for (let seg = first; seg <= last; seg++) {
+      const lo = Math.max(a, startS + seg * width);
+      const hi = Math.min(b, startS + (seg + 1) * width);
+      if (hi > lo) kept[seg] -= hi - lo;
+    }
+  }
+  let x = 0;
   for (let i = 0; i < spikeTimes.length; i++) {
     const t = spikeTimes[i];
     if (t < startS || t > stopS) continue;
+    while (x < xs.length && xe[x] <= t) x++;
+    if (x < xs.length && xs[x] <= t) continue; // inside an excluded interval
     let b = Math.floor((t - startS) / width);
     if (b >= k) b = k - 1;
     counts[b]++;
   }
   const ratesHz = new Float64Array(k);
   const centresS = new Float64Array(k);
+  let m = 0;
   let mean = 0;
   let meanT = 0;
   for (let b = 0; b < k; b++) {
-    ratesHz[b] = counts[b] / width;
+    ratesHz[b] = kept[b] > 0.01 * width ? counts[b] / kept[b] : NaN;
     centresS[b] = startS + (b + 0.5) * width;
-    mean += ratesHz[b] / k;
-    meanT += centresS[b] / k;
+    if (Number.isNaN(ratesHz[b])) continue;
+    m++;
+    mean += ratesHz[b];
+    meanT += centresS[b];
   }
+  if (m < 2) return { ratesHz, centresS, cv: NaN, slopeHzPerMin: NaN };
+  mean /= m;
+  meanT /= m;
   let ss = 0;
   let sxy = 0;
   let sxx = 0;
   for (let b = 0; b < k; b++) {
+    if (Number.isNaN(ratesHz[b])) continue;
     const d = ratesHz[b] - mean;
     const dt = centresS[b] - meanT;
     ss += d * d;
     sxy += dt * d;
     sxx += dt * dt;
   }
-  const cv = mean > 0 ? Math.sqrt(ss / k) / mean : NaN;
+  const cv = mean > 0 ? Math.sqrt(ss / m) / mean : NaN;
   let slopeHzPerMin = (sxy / sxx) * 60;
   // rounding noise of a flat rate (|change over the span| < 1e-12 x mean) is written as 0
   if (Math.abs(slopeHzPerMin * (len / 60)) < 1e-12 * mean) slopeHzPerMin = 0;

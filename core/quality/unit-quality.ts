@@ -30,6 +30,8 @@ export interface UnitQuality {
  * Computes all quality metrics of one unit over the recording span with the
  * `quality` parameters (refractory/censored periods in ms, presence bins,
  * drift segments). Spikes outside the span are ignored for every metric.
+ * `exclude` (e.g. lightWindows after each laser pulse) is left out of the
+ * rate-drift screen only (see rateDrift).
  * Waveform metrics need `waveform` and a finite `waveformSampleRateHz`.
  */
 export function unitQuality(
@@ -38,6 +40,7 @@ export function unitQuality(
   q: Parameters['quality'],
   waveform?: Float64Array,
   waveformSampleRateHz = NaN,
+  exclude?: { readonly startS: ArrayLike<number>; readonly stopS: ArrayLike<number> },
 ): UnitQuality {
   const [t0, t1] = span;
   let a = 0;
@@ -50,7 +53,7 @@ export function unitQuality(
   const refractoryS = q.refractoryMs / 1000;
   const viol = isiViolations(s, refractoryS);
   const cont = hillContamination(viol.count, n, len, refractoryS, q.censoredMs / 1000);
-  const drift = rateDrift(s, t0, t1, q.driftSegments);
+  const drift = rateDrift(s, t0, t1, q.driftSegments, exclude);
   const shape = waveform ? waveformShape(waveform, waveformSampleRateHz) : { troughToPeakMs: NaN, halfWidthMs: NaN };
   return {
     nSpikes: n,

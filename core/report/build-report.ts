@@ -1,3 +1,4 @@
+import { verdictColumns } from '../curation/verdict-columns';
 import { verdictWords } from '../curation/verdict-words';
 import type { Parameters } from '../defaults';
 import { VERDICT_STYLE } from '../figures/theme';
@@ -64,7 +65,7 @@ export function buildReport(r: ReportInput): string {
   if (r.notices.length) parts.push(`<section class="notices">${r.notices.map((n) => `<p class="notice">${esc(n)}</p>`).join('')}</section>`);
 
   // Counts per verdict
-  const verdictCols = t.columns.filter((c) => c.kind === 'string' && verdictWords(c.name));
+  const verdictCols = verdictColumns(t);
   const rows: string[] = [];
   for (const c of verdictCols) {
     const fin = col.get(`final_${c.name}`);
@@ -86,7 +87,7 @@ ${populationSlots(r.figures.population, (f) => f.id === 'verdict-counts')}</sect
   parts.push(`<section id="criteria"><h2>Light-identification criteria</h2>
 <p>Parameters in use (section <code>light</code>):</p>${renderValue(r.parameters.light)}
 <h3>What the light analysis reported</h3>
-${light === undefined ? '<p class="absent">The run has no light-identification summary (no pulses in the inputs, or the light analysis did not run), so no estimated false-identification rate can be shown.</p>' : renderValue(light)}</section>`);
+${light === undefined ? '<p class="absent">The run has no light-identification summary (no pulses in the inputs, or the light analysis did not run), so no estimated false-identification rate can be shown.</p>' : `${falseIdHeadline(light)}${renderValue(light)}`}</section>`);
 
   // Quality
   parts.push(`<section id="quality"><h2>Quality screen</h2>
@@ -139,7 +140,7 @@ function badge(word: string): string {
 function cell(c: Column, i: number): string {
   if (c.kind === 'number') return `<td class="num">${esc(formatNumber(c.values[i], Math.min(c.digits ?? 4, 4)))}</td>`;
   const v = c.values[i];
-  return `<td>${verdictWords(c.name.replace(/^final_/, '')) ? badge(v) : esc(v)}</td>`;
+  return `<td>${VERDICT_STYLE[v] && verdictWords(c.name.replace(/^final_/, '')) ? badge(v) : esc(v)}</td>`;
 }
 
 /** Slots for the population figures that pass `keep`, each pointing at its index in the embedded data. */
@@ -154,7 +155,7 @@ function unitSection(t: UnitTable, i: number, id: string, figs: readonly BuiltFi
   const dl = t.columns
     .map((c) => {
       const v = c.kind === 'number' ? formatNumber(c.values[i], c.digits ?? 6) : c.values[i];
-      const shown = c.kind === 'string' && verdictWords(c.name.replace(/^final_/, '')) ? badge(v) : esc(v === '' ? '—' : v);
+      const shown = c.kind === 'string' && VERDICT_STYLE[v] && verdictWords(c.name.replace(/^final_/, '')) ? badge(v) : esc(v === '' ? '—' : v);
       return `<dt title="${esc(c.description)}">${esc(c.name)}</dt><dd>${shown}</dd>`;
     })
     .join('');
@@ -191,18 +192,53 @@ function groupAverages(t: UnitTable, col: Map<string, Column>): string {
   return `<p>Grouped by <code>${esc(by.name)}</code>: mean ± SD (sample) over units with a value; p- and q-values are not averaged.</p><table class="data"><thead>${head}</thead><tbody>${body}</tbody></table>`;
 }
 
-/** Renders a JSON-like value as nested lists (scalars escaped; depth-limited). */
+/**
+ * The light summary's false-identification figures, shown first: every
+ * number (to depth 3) whose key mentions "false" (e.g. an expected number of
+ * falsely tagged units or a false-identification rate), with its path.
+ */
+function falseIdHeadline(light: unknown): string {
+  const found: string[] = [];
+  const walk = (v: unknown, path: string, depth: number) => {
+    if (depth > 3 || v === null || typeof v !== 'object' || Array.isArray(v)) return;
+    for (const [k, x] of Object.entries(v as Record<string, unknown>)) {
+      const p = path ? `${path}.${k}` : k;
+      if (typeof x === 'number' && /false/i.test(k)) found.push(`<li><code>${esc(p)}</code> = ${esc(formatNumber(x, 4))}</li>`);
+      else walk(x, p, depth + 1);
+    }
+  };
+  walk(light, '', 0);
+  return found.length
+    ? `<div class="headline"><strong>Estimated false identification</strong> (as the light analysis reports it):<ul>${found.join('')}</ul></div>`
+    : '<p class="absent">The light summary names no false-identification estimate.</p>';
+}
+
+/** A compact one-line form of a small value (for table cells). */
+function compact(v: unknown): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'number') return formatNumber(v, 4);
+  if (typeof v !== 'object') return String(v);
+  if (Array.isArray(v)) return v.map(compact).join('; ');
+  return Object.entries(v as Record<string, unknown>).map(([k, x]) => `${k} ${compact(x)}`).join(', ');
+}
+
+/** Renders a JSON-like value as nested lists, lists of records as tables (scalars escaped; depth-limited). */
 function renderValue(v: unknown, depth = 0): string {
   if (v === null || v === undefined) return '<span class="absent">none</span>';
   if (typeof v === 'number') return esc(formatNumber(v, 6));
   if (typeof v === 'string' || typeof v === 'boolean') return esc(String(v));
   if (Array.isArray(v)) {
     if (v.every((x) => x === null || typeof x !== 'object')) return esc(v.map((x) => (typeof x === 'number' ? formatNumber(x, 6) : String(x))).join(', '));
-    if (depth > 3) return esc(JSON.stringify(v).slice(0, 200));
+    if (v.every((x) => x !== null && typeof x === 'object' && !Array.isArray(x))) {
+      const keys = [...new Set(v.flatMap((x) => Object.keys(x as object)))];
+      const rows = v.map((x) => `<tr>${keys.map((k) => `<td>${esc(compact((x as Record<string, unknown>)[k]))}</td>`).join('')}</tr>`).join('');
+      return `<table class="data small"><thead><tr>${keys.map((k) => `<th>${esc(k)}</th>`).join('')}</tr></thead><tbody>${rows}</tbody></table>`;
+    }
+    if (depth > 3) return esc(compact(v).slice(0, 300));
     return `<ol>${v.map((x) => `<li>${renderValue(x, depth + 1)}</li>`).join('')}</ol>`;
   }
   if (typeof v === 'object') {
-    if (depth > 3) return esc(JSON.stringify(v).slice(0, 200));
+    if (depth > 3) return esc(compact(v).slice(0, 300));
     const e = Object.entries(v as Record<string, unknown>);
     if (e.length === 0) return '<span class="absent">none</span>';
     return `<dl class="kv">${e.map(([k, x]) => `<dt>${esc(k)}</dt><dd>${renderValue(x, depth + 1)}</dd>`).join('')}</dl>`;
@@ -215,6 +251,7 @@ body{font:14px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,sans-serif;color:#
 h1{font-size:24px;margin:8px 0}h2{font-size:19px;border-bottom:1px solid #ccc;padding-bottom:4px;margin-top:32px}h3{font-size:15px}
 .meta{color:#555}.caution{background:#f4f4f4;border-left:4px solid #0072B2;padding:8px 12px}
 .notice{background:#fff6e0;border-left:4px solid #E69F00;padding:8px 12px}
+.headline{background:#eef6fb;border-left:4px solid #56B4E9;padding:8px 12px;margin:8px 0}table.small{font-size:12px}
 nav a{margin:0 4px}code{font-size:12px}
 table.data{border-collapse:collapse;margin:8px 0;font-size:13px}table.data th,table.data td{border:1px solid #ddd;padding:3px 8px;text-align:left;vertical-align:top}
 table.data th{background:#f4f4f4}td.num{text-align:right;font-variant-numeric:tabular-nums}

@@ -71,6 +71,21 @@ export function ExportScreen(props: {
     }
   };
 
+  const report = async (): Promise<string> => {
+    onStatus('Building the report (every figure of every unit)...');
+    const plotlySource = (await import('plotly.js-dist-min/plotly.min.js?raw')).default;
+    return client.reportHtml({
+      curation,
+      title: `tagbench report: ${session.opened.name}`,
+      createdAt: new Date().toISOString(),
+      toolVersion: typeof __TAGBENCH_VERSION__ === 'string' ? __TAGBENCH_VERSION__ : 'unknown',
+      source: session.opened.displayPath,
+      sessionFile: SESSION_FILE_NAME,
+      notices: [],
+      plotlySource,
+    });
+  };
+
   const image = (f: NamedFigure, format: 'svg' | 'png') =>
     save(
       `${f.name}.${format}`,
@@ -102,6 +117,12 @@ export function ExportScreen(props: {
               <button disabled={working} onClick={() => save('units_curated.tsv', () => client.tableText('tsv', curation), 'text/tab-separated-values')}>.tsv</button>
               <button disabled={working} onClick={() => save('units_curated.json', () => client.tableText('json', curation), 'application/json')}>.json</button>
               <span className="muted">the curated table, tab-separated or as JSON</span>
+            </li>
+            <li>
+              <button disabled={working} onClick={() => save(`${base}_report.html`, report, 'text/html')} data-testid="export-report">
+                HTML report
+              </button>
+              <span className="muted">one file that opens offline: cautions, counts, criteria, quality, every figure and unit, inputs with SHA-256</span>
             </li>
             <li>
               <button disabled={working} onClick={() => save(SESSION_FILE_NAME, async () => sessionFileText(session, history, new Date()), 'application/json')} data-testid="export-session-file">

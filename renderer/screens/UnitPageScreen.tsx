@@ -1,7 +1,7 @@
 import { useEffect, useState, type RefObject } from 'react';
 import type { UnitCuration } from '../../core/curation/types';
 import { verdictWords } from '../../core/curation/verdict-words';
-import { formatNumber } from '../../core/table/format-number';
+import { formatCell } from '../state/format-cell';
 import type { OpenSession } from '../app/App';
 import { Plot } from '../components/Plot';
 import { VerdictBadge } from '../components/VerdictBadge';
@@ -117,7 +117,7 @@ export function UnitPageScreen(props: {
                 .map((c) => (
                   <tr key={c.name} title={c.description}>
                     <th>{c.name}</th>
-                    <td className={c.kind === 'number' ? 'num' : ''}>{c.kind === 'number' ? formatNumber(c.values[unitIndex], 4) || '-' : c.values[unitIndex] || '-'}</td>
+                    <td className={c.kind === 'number' ? 'num' : ''}>{c.kind === 'number' ? formatCell(c.values[unitIndex]) || '-' : c.values[unitIndex] || '-'}</td>
                   </tr>
                 ))}
             </tbody>

@@ -1,5 +1,5 @@
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
-import { formatNumber } from '../../core/table/format-number';
+import { formatCell } from '../state/format-cell';
 import type { OpenSession, TableViewState } from '../app/App';
 import { isVerdictWord, VerdictBadge } from '../components/VerdictBadge';
 import type { CurationState } from '../../core/curation/types';
@@ -96,7 +96,7 @@ export function UnitTableScreen(props: {
       >
         {columns.map((c) => (
           <div role="cell" key={c.name} className={c.kind === 'number' ? 'cell num' : 'cell'}>
-            {c.kind === 'number' ? formatNumber(c.values[r], 4) : isVerdictWord(c.values[r]) ? <VerdictBadge word={c.values[r]} /> : c.values[r]}
+            {c.kind === 'number' ? formatCell(c.values[r]) : isVerdictWord(c.values[r]) ? <VerdictBadge word={c.values[r]} /> : c.values[r]}
           </div>
         ))}
         <div role="cell" className="cell" title={labels}>{labels}</div>

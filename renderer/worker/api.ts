@@ -83,6 +83,19 @@ export type EventView = Pick<Parameters['align'], 'event' | 'windowStartS' | 'wi
 
 export type TableFormat = 'csv' | 'tsv' | 'json';
 
+/** What the page adds to a report request: what the worker cannot know. */
+export interface ReportRequest {
+  readonly curation: CurationState;
+  readonly title: string;
+  readonly createdAt: string;
+  readonly toolVersion: string;
+  readonly source: string;
+  readonly sessionFile: string | null;
+  readonly notices: readonly string[];
+  /** The minified plotly.js source, embedded so the report opens offline. */
+  readonly plotlySource: string;
+}
+
 export interface WorkbenchApi {
   /** Imports a session and runs the analysis with the given parameter overrides. */
   open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome>;
@@ -93,4 +106,6 @@ export interface WorkbenchApi {
   population(curation: CurationState): Promise<PopulationView>;
   /** The unit table as text (units.csv layout); with curation, final_* / included / note columns follow (applyCuration). */
   tableText(format: TableFormat, curation: CurationState | null): Promise<string>;
+  /** The self-contained HTML report (core/report/build-report.ts) of the curated table, every figure and the provenance. */
+  reportHtml(input: ReportRequest): Promise<string>;
 }

@@ -1,5 +1,6 @@
 import { proxy, wrap, type Remote } from 'comlink';
 import type { CurationState } from '../../core/curation/types';
+import type { ReportRequest } from './api';
 import type { AnalysisOutcome, EventView, OpenOutcome, PopulationView, Progress, SessionFileInput, TableFormat, UnitView, WorkbenchApi } from './api';
 
 /** Thrown into a pending call when the user cancels it. */
@@ -65,6 +66,10 @@ export class AnalysisClient {
 
   tableText(format: TableFormat, curation: CurationState | null): Promise<string> {
     return this.cancellable(this.api.tableText(format, curation));
+  }
+
+  reportHtml(r: ReportRequest): Promise<string> {
+    return this.cancellable(this.api.reportHtml(r));
   }
 
   /** Stops whatever the worker is doing; pending calls reject with CancelledError. */

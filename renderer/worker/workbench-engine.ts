@@ -4,6 +4,8 @@ import { applyCuration } from '../../core/curation/apply-curation';
 import type { CurationState } from '../../core/curation/types';
 import { verdictWords } from '../../core/curation/verdict-words';
 import { formatTable } from '../../core/export/format-table';
+import { buildReport } from '../../core/report/build-report';
+import { collectReportFigures } from '../../core/report/collect-report-figures';
 import { sessionTimelineFigure } from '../../core/figures/session-timeline-figure';
 import type { UnitFigure } from '../../core/figures/types';
 import { summariseRecording } from '../../core/model/summarise-recording';
@@ -11,6 +13,7 @@ import type { Recording, Warning } from '../../core/model/types';
 import { assembleTable } from '../../core/table/assemble-table';
 import type { Column, UnitTable } from '../../core/table/types';
 import { STEPS } from '../../core/pipeline/steps';
+import type { ReportRequest } from './api';
 import type { AnalysisOutcome, EventView, OpenOutcome, PlacedFigure, PopulationView, Progress, SessionFileInput, TableData, TableFormat, UnitSection, UnitView, WorkbenchApi } from './api';
 import { POPULATION_FIGURE_LIST, UNIT_FIGURE_LIST } from './figure-lists';
 import { isVerdictColumn } from '../state/verdict-columns';
@@ -29,6 +32,9 @@ export class WorkbenchEngine implements WorkbenchApi {
   private table: UnitTable | null = null;
   private sessionParameters: readonly { file: string; overrides: unknown }[] = [];
   private inputs: readonly InputFileRecord[] = [];
+  private importWarnings: readonly Warning[] = [];
+  private analysisWarnings: readonly Warning[] = [];
+  private summaries: Readonly<Record<string, unknown>> = {};
 
   async open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome> {
     onProgress({ label: `Importing ${name}`, done: 0, total: 1 });
@@ -36,6 +42,7 @@ export class WorkbenchEngine implements WorkbenchApi {
     this.recording = imported.recording;
     this.sessionParameters = imported.parameterSources;
     this.inputs = imported.inputs;
+    this.importWarnings = imported.warnings;
     const outcome = await this.analyse(overrides, onProgress);
     return {
       ...outcome,
@@ -55,12 +62,16 @@ export class WorkbenchEngine implements WorkbenchApi {
     const parameters = resolveParameters([...this.sessionParameters, { file: 'Analysis settings', overrides }]);
     const columns = new Map<string, Column>();
     const warnings: Warning[] = [];
+    const summaries: Record<string, unknown> = {};
     STEPS.forEach((step, i) => {
       onProgress({ label: `Analysis: ${step.name}`, done: i, total: STEPS.length });
       const res = step.run({ recording: rec, parameters, columns });
       for (const c of res.columns) columns.set(c.name, c);
       if (res.warnings) warnings.push(...res.warnings);
+      if (res.summary) summaries[step.name] = res.summary;
     });
+    this.summaries = summaries;
+    this.analysisWarnings = warnings;
     onProgress({ label: 'Analysis done', done: STEPS.length, total: STEPS.length });
     this.parameters = parameters;
     this.table = assembleTable([...columns.values()], rec.units.length);
@@ -120,6 +131,27 @@ export class WorkbenchEngine implements WorkbenchApi {
   async tableText(format: TableFormat, curation: CurationState | null): Promise<string> {
     const t = this.needTable();
     return formatTable(curation ? applyCuration(t, curation).table : t, format);
+  }
+
+  async reportHtml(r: ReportRequest): Promise<string> {
+    const table = applyCuration(this.needTable(), r.curation).table;
+    const parameters = this.needParameters();
+    const figures = collectReportFigures({ recording: this.need(), parameters, table }, UNIT_FIGURE_LIST, POPULATION_FIGURE_LIST);
+    return buildReport({
+      title: r.title,
+      createdAt: r.createdAt,
+      toolVersion: r.toolVersion,
+      source: r.source,
+      sessionFile: r.sessionFile,
+      table,
+      parameters,
+      summaries: this.summaries,
+      inputs: this.inputs,
+      warnings: [...this.importWarnings, ...this.analysisWarnings],
+      notices: r.notices,
+      figures,
+      plotlySource: r.plotlySource,
+    });
   }
 
   /** The current parameters (after the last analysis). */

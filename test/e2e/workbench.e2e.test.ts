@@ -6,7 +6,8 @@
  * unit table and read it back. Screenshots of each screen go to
  * test-artifacts/e2e/.
  */
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoDir } from '../../renderer/vite.config';
@@ -57,11 +58,18 @@ describe.sequential('workbench in a real browser', () => {
     await wb.page.getByTestId('unit-table').waitFor();
     expect(await wb.page.getByTestId('row-count').innerText()).toBe(`${counts.size} of ${counts.size} units`);
     const rows = wb.page.locator('.trow');
+    // Virtualised: only the rows in view (plus a few) are in the page; scroll through to see them all.
+    if (counts.size > 60) expect(await rows.count()).toBeLessThan(counts.size);
     const shown = new Map<string, number>();
-    for (const r of await rows.all()) {
-      const cells = await r.locator('.cell').allInnerTexts();
-      shown.set(cells[0], Number(cells[1]));
+    const table = wb.page.getByTestId('unit-table');
+    for (let pass = 0; pass < 200 && shown.size < counts.size; pass++) {
+      for (const cells of await rows.evaluateAll((els) => els.map((e) => Array.from(e.querySelectorAll('.cell')).map((c) => (c as HTMLElement).innerText)))) {
+        shown.set(cells[0], Number(cells[1]));
+      }
+      await table.evaluate((el) => (el.scrollTop += el.clientHeight - 60));
+      await wb.page.waitForTimeout(50);
     }
+    await table.evaluate((el) => (el.scrollTop = 0));
     expect(shown).toEqual(counts);
     // Sorting by n_spikes descending puts the busiest unit first.
     await wb.page.getByRole('columnheader', { name: 'n_spikes' }).click();
@@ -120,7 +128,9 @@ describe.sequential('workbench in a real browser', () => {
     await wb.page.locator('#p-light-windowEndMs').fill('4');
     await wb.page.getByTestId('rerun').click();
     await expect.poll(() => wb.page.locator('.status-text').innerText(), { timeout: 60_000 }).toMatch(/^Analysis re-run in \d+ ms with changed settings\.$/);
-    expect(await wb.page.locator('tr.changed th').allInnerTexts()).toEqual(['windowEndMs']);
+    // Marked: values that differ from the defaults (the demo's session.json also sets the span).
+    expect(await wb.page.locator('tr.changed th').allInnerTexts()).toContain('windowEndMs');
+    expect(await wb.page.locator('tr.changed th').allInnerTexts()).not.toContain('windowStartMs');
     await shot('5-analysis-settings');
     await wb.page.getByRole('button', { name: 'Unit table' }).click();
     expect(await tableText()).not.toBe(before);
@@ -167,6 +177,30 @@ describe.sequential('workbench in a real browser', () => {
     const head = readFileSync((await curated.path())!, 'utf8').split('\n')[0].split(',');
     expect(head).toContain('final_tag');
     expect(head).toContain('included');
+    // The HTML report: one file with the cautions, every unit and the plotting library inline.
+    const [rep] = await Promise.all([wb.page.waitForEvent('download', { timeout: 600_000 }), wb.page.getByTestId('export-report').click()]);
+    const html = readFileSync((await rep.path())!, 'utf8');
+    expect(html.startsWith('<!doctype html>') || html.startsWith('<!DOCTYPE html>')).toBe(true);
+    expect(html).toContain('tagbench report: demo');
+    expect(html).toMatch(/statistical screen/);
+    for (const id of counts.keys()) expect(html).toContain(id);
     expect(wb.pageErrors).toEqual([]);
+  }, LONG);
+
+  it('shows the importer message, not a stack trace, for an unreadable session folder', async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tagbench-bad-session-'));
+    writeFileSync(join(dir, 'spikes.csv'), 'unit,time\n1,0.5\n1,abc\n');
+    await wb.page.getByRole('button', { name: 'Start' }).click();
+    const [chooser] = await Promise.all([wb.page.waitForEvent('filechooser'), wb.page.getByRole('button', { name: 'Open session folder...' }).click()]);
+    await chooser.setFiles(dir);
+    const screen = wb.page.getByRole('alert');
+    await screen.waitFor();
+    const text = await screen.innerText();
+    expect(text).toMatch(/^Could not open /);
+    expect(text).toMatch(/spikes\.csv, row 3, column "time"/);
+    expect(text).not.toMatch(/\n\s+at /);
+    await shot('9-error-screen');
+    await wb.page.getByRole('button', { name: 'Back to Start' }).click();
+    await wb.page.getByTestId('open-demo').waitFor();
   }, LONG);
 });

@@ -1,3 +1,4 @@
+import { verdictColumns } from '../../curation/verdict-columns';
 import { verdictWords } from '../../curation/verdict-words';
 import { BASE_LAYOUT, OKABE_ITO } from '../theme';
 import type { PopulationFigure } from '../types';
@@ -12,7 +13,7 @@ export const verdictCountsFigure: PopulationFigure = {
   id: 'verdict-counts',
   title: 'Units per verdict',
   build({ table }) {
-    const cols = table.columns.filter((c) => c.kind === 'string' && verdictWords(c.name));
+    const cols = verdictColumns(table);
     if (cols.length === 0) return null;
     const byName = new Map(table.columns.map((c) => [c.name, c]));
     const xs: [string[], string[]] = [[], []];

@@ -3,7 +3,8 @@
  * trials, pulses, events), from the manifest where it says so and otherwise
  * automatically where the choice is unambiguous:
  *
- * - units: /units.
+ * - units: /units; without it, the file's only Units table elsewhere (e.g. in
+ *   a processing module).
  * - trials: /intervals/trials when present; condition from its `condition`
  *   column when present.
  * - pulses: the file's only OptogeneticSeries (threshold crossing of the
@@ -52,10 +53,19 @@ export function planNwbRoles(c: NwbContents, m: NwbManifest, manifestFile = 'ses
   };
 
   // Units.
-  const units = m.units ?? '/units';
+  let units = m.units ?? '/units';
   if (m.units) {
     needTable(units, 'nwb.units');
     notes.push(`units: ${units} (session.json)`);
+  } else if (!tablePaths.includes(units)) {
+    // No /units: a single Units table elsewhere (e.g. in a processing module) is unambiguous.
+    const others = c.tables.filter((t) => t.neurodataType === 'Units');
+    if (others.length === 1) {
+      units = others[0].path;
+      notes.push(`units: ${units} (the only Units table)`);
+    } else if (others.length > 1) {
+      throw new InputError({ file: c.file, problem: `there is no /units table but ${others.length} Units tables elsewhere (${others.map((t) => t.path).join(', ')})`, fix: `say which in session.json, e.g. "nwb": {"units": "${others[0].path}"}` });
+    } else notes.push('units: none found (no Units table)');
   } else notes.push(`units: ${units}`);
 
   // Trials.

@@ -7,7 +7,7 @@ import type { CurationAction } from '../../curation/types';
 import { InputError } from '../../errors';
 import { resolveParameters } from '../../resolve-parameters';
 import { loadSessionFile, saveSessionFile } from '../session-store';
-import type { SessionCommandDeps } from '../session-command-deps';
+import { defaultSessionDeps, type SessionCommandDeps } from '../session-command-deps';
 import { splitOptions } from './split-options';
 import type { Command } from './types';
 
@@ -110,5 +110,26 @@ export function makeCurateCommand(deps: SessionCommandDeps): Command {
       io.stdout(`unit ${unit}: saved ${actions.length} decision(s) by ${st.by} to ${file}.\n`);
       return 0;
     },
+  };
+}
+
+/** `tagbench curate` with the real loader and clock. */
+export const curateCommand: Command = lazyCommand(() => makeCurateCommand(defaultSessionDeps()));
+
+/** Builds a command's dependencies on first use (reading package.json and the clock only when run). */
+export function lazyCommand(make: () => Command): Command {
+  let c: Command | undefined;
+  const get = () => (c ??= make());
+  return {
+    get name() {
+      return get().name;
+    },
+    get summary() {
+      return get().summary;
+    },
+    get usage() {
+      return get().usage;
+    },
+    run: (argv, io) => get().run(argv, io),
   };
 }

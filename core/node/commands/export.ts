@@ -1,11 +1,12 @@
-import { existsSync, mkdirSync, statSync } from 'node:fs';
-import { basename, dirname, join, resolve } from 'node:path';
+import { existsSync, statSync } from 'node:fs';
+import { basename, dirname, resolve } from 'node:path';
 import { buildProvenance } from '../../export/build-provenance';
 import { formatTable, TABLE_FORMATS, type TableFormat } from '../../export/format-table';
 import { InputError } from '../../errors';
-import { atomicWriteFile } from '../atomic-write-file';
 import { openSession, type OpenedSession } from '../open-session';
-import type { SessionCommandDeps } from '../session-command-deps';
+import { defaultSessionDeps, type SessionCommandDeps } from '../session-command-deps';
+import { writeOutputFolder } from '../write-output-folder';
+import { lazyCommand } from './curate';
 import { splitOptions } from './split-options';
 import type { Command } from './types';
 
@@ -19,7 +20,9 @@ curation counts, time). Column order: the contract columns first, then the
 other analysis columns, then final_<verdict>, included, note, curated,
 curated_by, curated_at (see the README).
 
-A session file whose input files changed since it was saved is refused
+The --out folder is created; an earlier tagbench output there is replaced,
+any other existing folder is refused. A session file whose input files
+changed since it was saved is refused
 unless --allow-changed-inputs is given (run.json then records the change).`;
 
 /** `tagbench export`: the unit table in CSV/TSV/JSON with run.json provenance. */
@@ -42,8 +45,6 @@ export function makeExportCommand(deps: SessionCommandDeps): Command {
         if (!(TABLE_FORMATS as readonly string[]).includes(f)) throw new InputError({ file: 'tagbench export', column: '--format', value: f, problem: 'unknown format', fix: `use ${TABLE_FORMATS.join(', ')}` });
       }
       const outAbs = resolve(out);
-      if (existsSync(outAbs) && !statSync(outAbs).isDirectory()) throw new InputError({ file: out, problem: 'exists and is a file, not a folder', fix: 'choose another --out' });
-      if (!existsSync(dirname(outAbs))) throw new InputError({ file: out, problem: `the parent folder ${dirname(outAbs)} does not exist`, fix: 'create it first or choose another --out' });
 
       const opened = await openSession(positionals[0], deps.importSource, { allowChangedInputs: flags.has('--allow-changed-inputs') });
       for (const n of opened.notices) io.stderr(`${n}\n`);
@@ -51,9 +52,8 @@ export function makeExportCommand(deps: SessionCommandDeps): Command {
       const files: Record<string, string> = {};
       for (const f of formats as TableFormat[]) files[`units.${f}`] = formatTable(opened.table, f);
       files['run.json'] = provenanceOf(opened, deps, 'export', Object.keys(files));
-      mkdirSync(outAbs, { recursive: true });
-      // run.json last: a folder holding run.json holds the complete export
-      for (const [name, text] of Object.entries(files)) atomicWriteFile(join(outAbs, name), text);
+      // all files or none (an earlier tagbench output there is replaced; anything else is refused)
+      writeOutputFolder(outAbs, files);
       io.stdout(`Wrote ${Object.keys(files).join(', ')} to ${out} (${opened.table.rowCount} units, ${opened.table.columns.length} columns).\n`);
       return 0;
     },
@@ -94,3 +94,6 @@ export function provenanceOf(opened: OpenedSession, deps: SessionCommandDeps, co
     columns: opened.table.columns.map((c) => c.name),
   });
 }
+
+/** `tagbench export` with the real loader and clock. */
+export const exportCommand: Command = lazyCommand(() => makeExportCommand(defaultSessionDeps()));

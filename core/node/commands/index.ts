@@ -4,9 +4,12 @@
  * add a line here.
  */
 import { loadSession } from '../load-session';
+import { curateCommand } from './curate';
+import { exportCommand } from './export';
 import { inspectCommand } from './inspect';
 import { createPredictCommand } from './predict';
 import { createPsthCommand } from './psth';
+import { reportCommand } from './report';
 import { runCommand } from './run';
 import { batchCommand } from './batch';
 import type { Command } from './types';
@@ -17,6 +20,10 @@ export const COMMANDS: readonly Command[] = [
   // alignment and indicator kernels
   createPsthCommand((path) => loadSession(path)),
   createPredictCommand((path) => loadSession(path)),
+  // curation, exports and report
+  curateCommand,
+  exportCommand,
+  reportCommand,
   // many sessions
   batchCommand,
 ];

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
 import { InputError } from '../../errors';
 import type { ImportResult } from '../../io/import-result';
+import { eventLockedTrace } from '../../kernels/event-locked-trace';
 import { fitAmplitudeOffset, type AmplitudeFit } from '../../kernels/fit-amplitude-offset';
 import { gridSearchKernel } from '../../kernels/grid-search-kernel';
 import { hillSaturation } from '../../kernels/hill-saturation';
@@ -18,7 +19,7 @@ import { numberOption, rangeOption } from './option-values';
 import type { Command } from './types';
 
 const NAME = 'predict';
-const VALUED = ['--kernel', '--kernel-file', '--kernel-rate', '--amplitude', '--unit', '--rate', '--window', '--hill', '--measured', '--measured-rate', '--measured-start', '--measured-column', '--out'];
+const VALUED = ['--kernel', '--kernel-file', '--kernel-rate', '--amplitude', '--unit', '--rate', '--window', '--hill', '--measured', '--measured-rate', '--measured-start', '--measured-column', '--event', '--event-window', '--aligned-out', '--out'];
 const MAX_SAMPLES = 50_000_000;
 
 const USAGE = [
@@ -41,6 +42,10 @@ const USAGE = [
   '                       (N x 2 time,value; or 1-D with --measured-rate HZ [--measured-start S]);',
   '                       --measured-column NAME picks the value column',
   '  --search             with --measured: grid search of rise/decay constants (x0.25 .. x4 of the kernel)',
+  '  --event LABEL        also write event-locked averages of the prediction (and the measured trace)',
+  '                       around every event with this label to --aligned-out FILE.csv',
+  '                       (window --event-window a,b in s, default -3,2): offset_s, n, predicted_mean,',
+  '                       predicted_sem[, measured_mean, measured_sem]',
   '  --out FILE.csv       output: time_s, predicted columns (and measured, predicted_fitted)',
   '',
   'Library constants come from published half-rise / time-to-peak / half-decay values;',
@@ -142,6 +147,28 @@ export function createPredictCommand(load: (path: string) => Promise<ImportResul
           notes.push(`grid search: best rise ${fmt(s.best.tauRiseS * 1000)} ms, decay ${fmt(s.best.tauDecayS * 1000)} ms, r = ${fmt(s.best.fit.r)}`);
         }
       }
+      let aligned: string | null = null;
+      const alignedOut = opt('--aligned-out');
+      if (opt('--event') || alignedOut) {
+        if (!opt('--event') || !alignedOut || !/\.csv$/i.test(alignedOut)) {
+          throw new InputError({ file: where, column: '--event', problem: '--event and --aligned-out FILE.csv go together' });
+        }
+        if (traces.length !== 1) throw new InputError({ file: where, column: '--unit', value: unitArg, problem: 'event-locked averages are written for one prediction', fix: 'use --unit U or --unit population' });
+        const label = opt('--event')!;
+        const times = Float64Array.from(rec.events.time.filter((_, i) => rec.events.label[i] === label));
+        if (times.length === 0) throw new InputError({ file: session.name, column: '--event', value: label, problem: 'no events with this label', fix: `labels in this session: ${[...new Set(rec.events.label)].slice(0, 20).join(', ')}` });
+        const [w0, w1] = opt('--event-window') ? rangeOption(opt('--event-window')!, '--event-window', NAME) : [parameters.align.windowStartS, parameters.align.windowStopS];
+        const pe = eventLockedTrace(traces[0], t0, gridRate, times, w0, w1);
+        const me = measured ? eventLockedTrace(measured.values, t0, gridRate, times, w0, w1) : null;
+        const rows = [['offset_s', 'n', 'predicted_mean', 'predicted_sem', ...(me ? ['measured_mean', 'measured_sem', 'n_measured'] : [])].join(',')];
+        for (let c = 0; c < pe.offsetS.length; c++) {
+          rows.push(
+            [formatNumber(pe.offsetS[c]), String(pe.count[c]), formatNumber(pe.mean[c]), formatNumber(pe.sem[c]), ...(me ? [formatNumber(me.mean[c]), formatNumber(me.sem[c]), String(me.count[c])] : [])].join(','),
+          );
+        }
+        aligned = `${rows.join('\n')}\n`;
+        notes.push(`aligned on ${label}: ${times.length} events, window ${w0} to ${w1} s; wrote ${alignedOut}`);
+      }
       const lines: string[] = [header.join(',')];
       for (let k = 0; k < length; k++) {
         const row = [formatNumber(t0 + k / gridRate)];
@@ -150,6 +177,7 @@ export function createPredictCommand(load: (path: string) => Promise<ImportResul
         lines.push(row.join(','));
       }
       writeOutputFile(out, `${lines.join('\n')}\n`);
+      if (aligned !== null) writeOutputFile(alignedOut!, aligned);
       const unitNote = amplitudeKnown ? 'dF/F' : 'units of one spike\'s peak (single-spike amplitude not published; give --amplitude)';
       io.stderr([`predict: ${kernelName}, ${columns.length} column(s), ${length} samples at ${fmt(gridRate)} Hz, in ${unitNote}; wrote ${out}`, ...notes].join('\n') + '\n');
       return 0;

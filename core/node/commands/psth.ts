@@ -1,4 +1,5 @@
 import { eventResponse, type EventResponse } from '../../align/event-response';
+import { warpedResponse } from '../../align/warped-response';
 import type { AlignmentSpec } from '../../align/select-alignment';
 import type { GroupBy, OrderBy, PsthOptions, Smoothing } from '../../align/types';
 import { InputError } from '../../errors';
@@ -11,7 +12,7 @@ import { numberOption, rangeOption } from './option-values';
 import type { Command } from './types';
 
 const NAME = 'psth';
-const VALUED = ['--unit', '--event', '--kind', '--condition', '--window', '--bin', '--smooth', '--band', '--by', '--order', '--baseline', '--seed', '--resamples', '--out'];
+const VALUED = ['--unit', '--event', '--warp', '--kind', '--condition', '--window', '--bin', '--smooth', '--band', '--by', '--order', '--baseline', '--seed', '--resamples', '--out'];
 
 const USAGE = [
   'Usage: tagbench psth <session-dir|file.nwb> --unit U (--event LABEL | --pulses) [options]',
@@ -32,6 +33,10 @@ const USAGE = [
   '  --by G              group trials: condition (default), kind, none, or covariate:NAME (3 quantile bins)',
   '  --order O           trial order in the raster: time (default), condition, covariate:NAME',
   '  --baseline a,b      baseline window, s: adds a z-score column',
+  '  --warp A,B[,C...]   time-warped PSTH between anchor events per trial (e.g. sweep_on,reward;',
+  '                      trial_start / trial_stop allowed): piecewise linear onto the median template;',
+  '                      --window a,b then means a s before the first and b s after the last anchor',
+  '                      (default -1,1), --by condition|none; rates corrected for stretched bins',
   '  --out FILE          write .csv (one row per group and bin) or .json (with the raster); default: CSV on stdout',
   '',
   'CSV columns: unit, event, group, n_trials, bin_start_s, bin_center_s, rate_hz, sem_hz,',
@@ -94,6 +99,7 @@ export function createPsthCommand(load: (path: string) => Promise<ImportResult>)
         const [s, e] = rangeOption(opt('--baseline')!, '--baseline', NAME);
         Object.assign(psth, { baselineStartS: s, baselineStopS: e });
       }
+      if (opt('--warp')) return runWarped(a.positionals[0], session, opt, io, psth);
       const groupBy = parseGroup(opt('--by') ?? d.groupBy);
       const orderBy = parseOrder(opt('--order') ?? 'time');
 
@@ -137,6 +143,59 @@ export function createPsthCommand(load: (path: string) => Promise<ImportResult>)
       return 0;
     },
   };
+}
+
+async function runWarped(
+  path: string,
+  session: ImportResult,
+  opt: (k: string) => string | undefined,
+  io: { stdout: (t: string) => void; stderr: (t: string) => void },
+  psth: Partial<PsthOptions>,
+): Promise<number> {
+  const rec = session.recording;
+  const where = `tagbench ${NAME}`;
+  for (const k of ['--event', '--pulses', '--kind', '--condition', '--smooth', '--band', '--baseline', '--order']) {
+    if (opt(k) !== undefined) throw new InputError({ file: where, column: k, problem: 'not used with --warp', fix: 'drop it, or run without --warp' });
+  }
+  const labels = opt('--warp')!.split(',').map((x) => x.trim());
+  if (labels.length < 2 || labels.some((x) => x === '')) throw new InputError({ file: where, column: '--warp', value: opt('--warp')!, problem: 'give at least two anchor event labels, comma-separated' });
+  const known = new Set([...rec.events.label, 'trial_start', 'trial_stop']);
+  const unknown = labels.filter((x) => !known.has(x));
+  if (unknown.length) throw new InputError({ file: path, column: '--warp', value: unknown.join(','), problem: 'no events with this label', fix: `labels in this session: ${[...new Set(rec.events.label)].slice(0, 20).join(', ')}` });
+  if (rec.trials.start.length === 0) throw new InputError({ file: path, problem: 'time-warping needs trials (trials.csv)' });
+  const by = opt('--by') ?? 'condition';
+  if (by !== 'condition' && by !== 'none') throw new InputError({ file: where, column: '--by', value: by, problem: 'with --warp, group by condition or none' });
+  const unitArg = opt('--unit')!;
+  const units = unitArg === 'all' ? rec.units.map((_, i) => i) : [rec.units.findIndex((u) => u.id === unitArg)];
+  if (units[0] === -1) throw new InputError({ file: path, column: '--unit', value: unitArg, problem: 'no such unit' });
+  const preS = psth.windowStartS !== undefined ? -psth.windowStartS : 1;
+  const postS = psth.windowStopS ?? 1;
+  if (!(preS >= 0 && postS >= 0)) throw new InputError({ file: where, column: '--window', problem: 'with --warp the window must start at or before 0 and stop at or after 0 (seconds around the anchors)' });
+  const responses = units.map((u) => warpedResponse(rec, u, labels, { binMs: psth.binMs ?? 50, preS, postS, groupBy: by }));
+  const r0 = responses[0];
+  if (!r0 || r0.groups.length === 0) throw new InputError({ file: path, column: '--warp', value: labels.join(','), problem: 'no trial has every anchor in increasing order' });
+  const lines = ['unit,anchors,group,n_trials,bin_start_s,bin_center_s,rate_hz,sem_hz'];
+  for (const r of responses) {
+    for (const g of r.groups) {
+      const p = g.psth;
+      for (let j = 0; j < p.rateHz.length; j++) {
+        lines.push([quote(r.unitId), quote(labels.join('>')), quote(g.label), String(g.nTrials), formatNumber(p.binStartS[j]), formatNumber(p.binStartS[j] + p.binS / 2), formatNumber(p.rateHz[j]), formatNumber(p.semHz[j])].join(','));
+      }
+    }
+  }
+  const text = `${lines.join('\n')}\n`;
+  const out = opt('--out');
+  const tpl = Array.from(r0.template, (t, k) => `${labels[k]} at ${formatNumber(t)} s`).join(', ');
+  const note = `psth --warp: template ${tpl}; ${r0.invalidTrials} trial(s) without every anchor in order left out`;
+  if (out) {
+    if (!/\.csv$/i.test(out)) throw new InputError({ file: where, column: '--out', value: out, problem: 'with --warp the output is CSV (.csv)' });
+    writeOutputFile(out, text);
+    io.stderr(`${note}; wrote ${out}\n`);
+  } else {
+    io.stdout(text);
+    io.stderr(`${note}\n`);
+  }
+  return 0;
 }
 
 function parseSmoothing(v: string): Smoothing {

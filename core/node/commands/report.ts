@@ -5,7 +5,8 @@ import { buildReport } from '../../report/build-report';
 import { InputError } from '../../errors';
 import { atomicWriteFile } from '../atomic-write-file';
 import { openSession } from '../open-session';
-import type { SessionCommandDeps } from '../session-command-deps';
+import { defaultSessionDeps, type SessionCommandDeps } from '../session-command-deps';
+import { lazyCommand } from './curate';
 import { refuseInsideInputs } from './export';
 import { splitOptions } from './split-options';
 import type { Command } from './types';
@@ -62,3 +63,6 @@ export function makeReportCommand(deps: SessionCommandDeps): Command {
     },
   };
 }
+
+/** `tagbench report` with the real loader and clock. */
+export const reportCommand: Command = lazyCommand(() => makeReportCommand(defaultSessionDeps()));

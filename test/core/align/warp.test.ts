@@ -106,3 +106,36 @@ describe('warpSpikes and warpedPsth', () => {
     expectClose(e0, 0.5 + (a.times[1] - a.times[0]) + 0.5 + (nb * 0.25 - (tpl[1] + 1)), 1e-9, 'exposure of trial 1');
   });
 });
+
+describe('warpedResponse', () => {
+  it('shares one template across conditions and counts the trials left out', async () => {
+    const { warpedResponse } = await import('../../../core/align/warped-response');
+    const r = makeRecording({
+      units: [{ id: 'u', spikes: [1.0, 3.0, 11.0, 21.0] }],
+      trials: [
+        { trial: 1, start: 0, stop: 10, condition: 'a' },
+        { trial: 2, start: 10, stop: 20, condition: 'b' },
+        { trial: 3, start: 20, stop: 30, condition: 'a' },
+        { trial: 4, start: 30, stop: 40, condition: 'b' },
+      ],
+      events: [
+        { time: 0.5, label: 'tone_on' },
+        { time: 3.5, label: 'reward' },
+        { time: 10.5, label: 'tone_on' },
+        { time: 15.5, label: 'reward' },
+        { time: 20.5, label: 'tone_on' },
+        { time: 24.5, label: 'reward' },
+        { time: 30.5, label: 'tone_on' },
+      ],
+    });
+    const w = warpedResponse(r, 0, ['tone_on', 'reward'], { binMs: 500, preS: 0.5, postS: 0.5, groupBy: 'condition' });
+    expect(w.invalidTrials).toBe(1);
+    expectClose(w.template[1], 4, 1e-12, 'median of 3, 5, 4');
+    expect(w.groups.map((g) => [g.label, g.nTrials])).toEqual([
+      ['a', 2],
+      ['b', 1],
+    ]);
+    // Trial 2 (b): tone 10.5 -> 0, reward 15.5 -> 4; its spike at 11.0 maps to 0.4 s (slope 4/5) -> bin [0, 0.5) = bin 1.
+    expect([...w.groups[1].psth.counts.subarray(0, 3)]).toEqual([0, 1, 0]);
+  });
+});

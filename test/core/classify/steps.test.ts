@@ -9,7 +9,7 @@ import { DEFAULTS } from '../../../core/defaults';
 import { analyseRecording } from '../../../core/pipeline/analyse-recording';
 import { formatDelimited } from '../../../core/table/format-delimited';
 import { emptyEvents, emptyTrials } from '../../../core/model/empty';
-import { CONTRACT_COLUMNS, JUMP_VERDICTS, RAMP_VERDICTS } from '../../../core/table/contract-columns';
+import { JUMP_VERDICTS, RAMP_VERDICTS } from '../../../core/table/contract-columns';
 import { taskSession } from '../../helpers/task-session';
 
 describe('ramp, jump and cluster steps', () => {
@@ -27,10 +27,11 @@ describe('ramp, jump and cluster steps', () => {
   const names = res.table.columns.map((c) => c.name);
 
   it('writes the contract columns in order, then the jump triples per kind', () => {
-    // Contract columns come first, in CONTRACT_COLUMNS order (other steps add theirs between).
-    const contract = CONTRACT_COLUMNS.filter((c) => names.includes(c));
-    expect(names.slice(0, contract.length)).toEqual(contract);
-    expect(contract).toEqual(expect.arrayContaining(['unit', 'n_spikes', 'rate_hz', 'ramp', 'ramp_slope_hz_per_s', 'ramp_p', 'ramp_q']));
+    // Contract order (DESIGN.md section 3); the light step's tag columns sit between rate_hz and ramp.
+    const head = ['unit', 'n_spikes', 'rate_hz', 'ramp', 'ramp_slope_hz_per_s', 'ramp_p', 'ramp_q'];
+    expect(names.filter((n) => head.includes(n))).toEqual(head);
+    expect(names.indexOf('ramp_q') - names.indexOf('ramp')).toBe(3);
+    expect(names.slice(0, 3)).toEqual(head.slice(0, 3));
     const i = names.indexOf('ramp_q');
     expect(names.slice(i + 1, i + 7)).toEqual([
       'jump_backward', 'jump_backward_delta_hz', 'jump_backward_p', 'jump_forward', 'jump_forward_delta_hz', 'jump_forward_p',
@@ -72,5 +73,13 @@ describe('ramp, jump and cluster steps', () => {
     expect(row[header.indexOf('ramp_q')]).toBe('');
     expect(r.warnings.map((w) => w.code)).toContain('ramp-no-trials');
     expect((r.summaries as Record<string, Record<string, unknown>>).jump.note).toBe('no "jump" events');
+  });
+
+  it('names the conditions present when the reference condition has no trials', () => {
+    const other = taskSession({ nTrials: 20, standardLabel: 'A', otherConditions: [{ label: 'B', fraction: 0.5 }], units: [{ rateHz: 5, shape: 1 }], seed: 102 });
+    const r = analyseRecording(other, DEFAULTS);
+    const w = r.warnings.find((x) => x.code === 'ramp-no-trials')!;
+    expect(w.message).toContain('no "reward" events in trials of condition "standard"');
+    expect(w.message).toContain('Conditions present: A, B');
   });
 });

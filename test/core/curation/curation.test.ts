@@ -92,7 +92,7 @@ describe('checkCurationAction', () => {
 describe('applyCuration', () => {
   const col = (name: string, v: string[]): Column => ({ name, kind: 'string', values: v, description: name });
   const table = assembleTable(
-    [col('unit', ['a', 'b', 'c']), col('tag', ['untagged', 'tagged', 'borderline']), { name: 'tag_p', kind: 'number', values: Float64Array.of(0.5, 0.001, 0.02), description: '' }, col('jump_fwd', ['none', 'excited', 'none']), col('quality', ['pass', 'pass', 'review'])],
+    [col('unit', ['a', 'b', 'c']), col('tag', ['untagged', 'tagged', 'borderline']), { name: 'tag_p', kind: 'number', values: Float64Array.of(0.5, 0.001, 0.02), description: '' }, col('jump_fwd', ['none', 'excited', 'none']), { name: 'jump_fwd_delta_hz', kind: 'number', values: Float64Array.of(0, 2, 0), description: '' }, col('quality', ['pass', 'pass', 'review'])],
     3,
   );
   it('keeps computed verdicts and adds final values, include, note and stamps', () => {
@@ -102,7 +102,7 @@ describe('applyCuration', () => {
     s = curationReducer(s, label('zz', 'tag', 'tagged'));
     const { table: t, orphans } = applyCuration(table, s);
     const v = (n: string) => t.columns.find((c) => c.name === n)!.values;
-    expect(t.columns.map((c) => c.name)).toEqual(['unit', 'tag', 'tag_p', 'jump_fwd', 'quality', 'final_tag', 'final_jump_fwd', 'final_quality', 'included', 'note', 'curated', 'curated_by', 'curated_at']);
+    expect(t.columns.map((c) => c.name)).toEqual(['unit', 'tag', 'tag_p', 'jump_fwd', 'jump_fwd_delta_hz', 'quality', 'final_tag', 'final_jump_fwd', 'final_quality', 'included', 'note', 'curated', 'curated_by', 'curated_at']);
     expect(v('tag')).toEqual(['untagged', 'tagged', 'borderline']); // computed stays as computed
     expect(v('final_tag')).toEqual(['tagged', 'tagged', 'borderline']);
     expect(v('included')).toEqual(['yes', 'yes', 'no']);
@@ -162,5 +162,18 @@ describe('applyCuration without the labelled verdict column', () => {
     const out = applyCuration(t, s).table;
     expect(out.columns.map((c) => c.name)).toEqual(['unit', 'final_ramp', 'included', 'note', 'curated', 'curated_by', 'curated_at']);
     expect(out.columns[1].values).toEqual(['', 'up']);
+  });
+});
+
+describe('verdict columns (jump_K needs its jump_K_delta_hz companion)', () => {
+  it('ignores derived jump columns', async () => {
+    const { verdictColumns } = await import('../../../core/curation/verdict-columns');
+    const { verdictWords } = await import('../../../core/curation/verdict-words');
+    const s = (name: string): Column => ({ name, kind: 'string', values: ['none'], description: '' });
+    const t = assembleTable([s('unit'), s('jump_fwd'), { name: 'jump_fwd_delta_hz', kind: 'number', values: Float64Array.of(1), description: '' }, s('jump_fwd_reason'), s('jump_fwd_shape'), s('jump_lone')], 1);
+    expect(verdictColumns(t).map((c) => c.name)).toEqual(['jump_fwd']);
+    expect(verdictWords('jump_fwd_reason')).toBeNull();
+    expect(verdictWords('jump_fwd_q')).toBeNull();
+    expect(verdictWords('jump_far_back')).not.toBeNull();
   });
 });

@@ -36,8 +36,8 @@ describe('figure registry', () => {
     }
     for (const f of POPULATION_FIGURES) {
       const spec = f.build(ctx);
-      expect(spec).not.toBeNull();
-      expect(JSON.parse(JSON.stringify(spec))).toEqual(spec);
+      if (['verdict-counts', 'population-rate-heatmap'].includes(f.id)) expect(spec).not.toBeNull(); // the quality ones always apply
+      if (spec) expect(JSON.parse(JSON.stringify(spec))).toEqual(spec);
     }
   });
   it('draws the autocorrelogram mirrored and counts the hand-made ISI', () => {
@@ -60,9 +60,12 @@ describe('figure registry', () => {
     const table = applyCuration(analysis.table, cur).table;
     const spec = POPULATION_FIGURES.find((f) => f.id === 'verdict-counts')!.build({ ...ctx, table })!;
     const [computed, final] = spec.data as { x: string[][]; y: number[] }[];
-    expect(computed.x).toEqual([['quality', 'quality'], ['pass', 'review']]);
-    expect(computed.y).toEqual([0, 2]); // 8 and 1 spikes: too few to judge
-    expect(final.y).toEqual([1, 1]);
+    const at = (w: string) => computed.x[0].findIndex((c, k) => c === 'quality' && computed.x[1][k] === w);
+    expect(at('pass')).toBeGreaterThanOrEqual(0);
+    expect(computed.y[at('pass')]).toBe(0); // 8 and 1 spikes: too few to judge
+    expect(computed.y[at('review')]).toBe(2);
+    expect(final.y[at('pass')]).toBe(1);
+    expect(final.y[at('review')]).toBe(1);
   });
 });
 

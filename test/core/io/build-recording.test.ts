@@ -89,6 +89,7 @@ describe('buildRecording', () => {
     ['infinite time', base(spikes(['1'], [Infinity])), /row 2, column "time": time is not a finite number/],
     ['negative time', base(spikes(['1', '1'], [1, -0.5])), /row 3, column "time": time is negative/],
     ['empty table', base(spikes([], [])), /spikes\.csv: the spike table has no rows/],
+    ['empty unit id', base(spikes(['1', ''], [1, 2])), /spikes\.csv, row 3, column "unit": the unit id is empty/],
     [
       'unknown unit',
       base(spikes(['1', '7'], [1, 2]), { unitInfo: { file: 'unit_info.csv', rowOf, columns: { unit: 'unit' }, ids: ['1'], meta: {} } }),

@@ -124,6 +124,21 @@ describe('createDelimitedParser', () => {
     expect(errorOf(() => parse(text, SPIKE_COLS, 1))).toMatch(re);
   });
 
+  it('joins column blocks of large files in order (200,003 rows, odd chunks)', () => {
+    const n = 200_003;
+    const parts = ['unit,time\n'];
+    for (let i = 0; i < n; i++) parts.push(`${i % 7},${i}.5\n`);
+    const t = parse(parts.join(''), SPIKE_COLS, 65_537);
+    expect(t.rowCount).toBe(n);
+    const tm = t.numbers.get('time')!;
+    const c = t.codes.get('unit')!;
+    for (const i of [0, 65_535, 65_536, 131_072, n - 1]) {
+      expect(tm[i]).toBe(i + 0.5);
+      expect(c.dictionary[c.codes[i]]).toBe(String(i % 7));
+    }
+    expect(t.rowOf(n - 1)).toBe(n + 1);
+  });
+
   it('header-only file gives zero rows', () => {
     expect(parse('unit,time\n').rowCount).toBe(0);
   });

@@ -94,13 +94,16 @@ describe('kill the process during a save (SIGKILL, many times)', () => {
     let nextFirst = 1;
     let lastSeen = 0;
     let leftovers = 0;
+    let live: ReturnType<typeof spawn> | null = null;
+    try {
     for (let k = 0; k < kills; k++) {
       // node itself runs the saver (tsx as a loader), so SIGKILL hits the process that writes
       const proc = spawn(process.execPath, ['--import', 'tsx', child, p, '3000', String(nextFirst)], { cwd: ROOT, stdio: ['ignore', 'pipe', 'pipe'] });
+      live = proc;
       let stderr = '';
-      proc.stderr.on('data', (b) => (stderr += b));
+      proc.stderr!.on('data', (b) => (stderr += b));
       await new Promise<void>((res, rej) => {
-        proc.stdout.on('data', (b) => String(b).includes('ready') && res());
+        proc.stdout!.on('data', (b) => String(b).includes('ready') && res());
         proc.on('exit', () => rej(new Error(`save loop ended early: ${stderr}`)));
       });
       // kill at a different point of the write cycle each time
@@ -108,6 +111,7 @@ describe('kill the process during a save (SIGKILL, many times)', () => {
       const exited = new Promise((r) => proc.on('exit', r));
       proc.kill('SIGKILL');
       await exited;
+      live = null;
       // the main file is a whole version, loaded without falling back to the backup
       const { v, fromBackup } = wholeVersion(p);
       expect(fromBackup).toBe(false);
@@ -121,8 +125,12 @@ describe('kill the process during a save (SIGKILL, many times)', () => {
       leftovers += readdirSync(d).filter((f) => f.includes('.tmp-')).length > 0 ? 1 : 0;
       for (const f of readdirSync(d)) if (f.includes('.tmp-') || f.includes('.bak-')) rmSync(join(d, f));
     }
+    } finally {
+      // never leave a saver running (e.g. when the test times out on a busy machine)
+      live?.kill('SIGKILL');
+    }
     // Evidence that kills landed mid-write (a temporary file was left behind) at least once;
     // otherwise this test would prove nothing.
     expect(leftovers).toBeGreaterThan(0);
-  });
+  }, 600_000);
 });

@@ -5,6 +5,7 @@ import { cv2 } from '../../../core/quality/cv2';
 import { hillContamination } from '../../../core/quality/hill-contamination';
 import { isiViolations } from '../../../core/quality/isi-violations';
 import { localVariation } from '../../../core/quality/local-variation';
+import { lightWindows } from '../../../core/quality/light-windows';
 import { presenceRatio } from '../../../core/quality/presence-ratio';
 import { rateDrift } from '../../../core/quality/rate-drift';
 import { Rng } from '../../../core/random/rng';
@@ -144,6 +145,23 @@ describe('rateDrift (our definition: CV and slope of segment rates)', () => {
     // slope 1 Hz per 10 s = 6 Hz per minute
     close(d.slopeHzPerMin, 6, 1e-12);
   });
+  it('leaves excluded intervals (e.g. light windows) out of counts and time', () => {
+    // 1 Hz everywhere in [0, 40) s (spikes at k + 0.5 s), plus a burst of 50 spikes at 35.000-35.049 s
+    const base = Array.from({ length: 40 }, (_, k) => k + 0.5);
+    const burst = Array.from({ length: 50 }, (_, k) => 35 + k * 0.001);
+    const t = Float64Array.from([...base, ...burst].sort((a, b) => a - b));
+    expect(rateDrift(t, 0, 40, 4).ratesHz[3]).toBeCloseTo(6, 12); // (10 + 50) / 10 s without exclusion
+    // exclude [35, 35.1) (the burst) and [10, 15) (half of segment 2, holding 5 regular spikes)
+    const d = rateDrift(t, 0, 40, 4, { startS: Float64Array.of(10, 35), stopS: Float64Array.of(15, 35.1) });
+    // segment 2: 5 spikes in 5 s left = 1 Hz; segment 4: 10 spikes in 9.9 s = 1.0101 Hz
+    expect(d.ratesHz[1]).toBeCloseTo(1, 12);
+    expect(d.ratesHz[3]).toBeCloseTo(10 / 9.9, 12);
+    expect(d.cv).toBeLessThan(0.005);
+    // a segment left with no time has no rate and is left out
+    const all = rateDrift(t, 0, 40, 4, { startS: Float64Array.of(0), stopS: Float64Array.of(10) });
+    expect(all.ratesHz[0]).toBeNaN();
+    expect(Number.isFinite(all.cv)).toBe(true);
+  });
   it('is NaN for an empty span or a silent unit', () => {
     expect(rateDrift(Float64Array.of(1), 0, 0, 4).cv).toBeNaN();
     const silent = rateDrift(new Float64Array(0), 0, 10, 4);
@@ -155,5 +173,15 @@ describe('rateDrift (our definition: CV and slope of segment rates)', () => {
 describe('quality defaults (common practice / our choice, pinned)', () => {
   it('pins the thresholds', () => {
     expect(DEFAULTS.quality).toMatchObject({ presenceBins: 100, driftSegments: 10, minSpikes: 100, maxContamination: 0.1, minPresenceRatio: 0.9, maxRateDriftCv: 0.5, acgBinMs: 1, acgWindowMs: 50 });
+  });
+});
+
+describe('lightWindows', () => {
+  it('builds merged windows after each pulse', () => {
+    // pulses at 1, 1.005 (overlapping 10 ms windows merge) and 3 s; window 0-10 ms
+    const w = lightWindows(Float64Array.of(3, 1, 1.005), 0, 10);
+    expect(Array.from(w.startS)).toEqual([1, 3]);
+    expect(Array.from(w.stopS).map((x) => +x.toFixed(9))).toEqual([1.015, 3.01]);
+    expect(lightWindows(Float64Array.of(1), 5, 5).startS.length).toBe(0);
   });
 });

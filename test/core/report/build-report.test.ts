@@ -70,3 +70,11 @@ describe('embedding helpers', () => {
     expect(new Function(`${out}; return [a, b];`)()).toEqual(['</SCRIPT>', '<!--']);
   });
 });
+
+describe('buildReport light summary', () => {
+  it('puts false-identification numbers first and renders lists of records as tables', () => {
+    const html = buildReport({ ...base, summaries: { light: { trust: { expectedFalseTagged: 0.4, cells: [{ rateHz: 2, falseRate: 0.01 }, { rateHz: 8, falseRate: 0.02 }] } } } });
+    expect(html).toContain('<li><code>trust.expectedFalseTagged</code> = 0.4</li>');
+    expect(html).toContain('<table class="data small"><thead><tr><th>rateHz</th><th>falseRate</th></tr></thead><tbody><tr><td>2</td><td>0.01</td></tr><tr><td>8</td><td>0.02</td></tr></tbody></table>');
+  });
+});

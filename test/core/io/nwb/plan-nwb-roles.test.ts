@@ -35,6 +35,11 @@ describe('planNwbRoles', () => {
     expect(p.events).toEqual([{ table: '/intervals/reward', label: 'reward' }]);
     expect(p.trials).toBeNull();
   });
+  it('without /units, takes the only Units table elsewhere; two are an error', () => {
+    const moved = table('/processing/ecephys/sorted', ['spike_times'], 'Units');
+    expect(planNwbRoles(contents([moved]), {}).units).toBe('/processing/ecephys/sorted');
+    expect(() => planNwbRoles(contents([moved, table('/processing/b', ['spike_times'], 'Units')]), {})).toThrow(/no \/units table but 2 Units tables/);
+  });
   it('refuses to guess between two OptogeneticSeries and says how to choose', () => {
     expect(() => planNwbRoles(contents([units], [opto('/a'), opto('/b')]), {})).toThrow(/more than one OptogeneticSeries \(\/a, \/b\).*"pulses": \{"series": "\/a"\}/);
   });

@@ -71,6 +71,25 @@ describe('tagbench predict', () => {
     await cmd.run(['demo', '--kernel-file', kfile, '--kernel-rate', '100', '--unit', 'u1', '--out', join(dir, 'k.csv')], captureIo());
     expect(readCsv(join(dir, 'k.csv')).rows.length).toBe(91);
   });
+  it('writes event-locked averages of the prediction', async () => {
+    const withEvents = { ...rec, events: { time: Float64Array.of(1, 2), label: ['reward', 'reward'], trial: Float64Array.of(NaN, NaN), kind: ['', ''] } };
+    const c2 = createPredictCommand(memoryLoader(withEvents));
+    const out = join(dir, 'trace10.csv');
+    const al = join(dir, 'aligned.csv');
+    const io = captureIo();
+    await c2.run(['demo', '--kernel', 'double:20,200', '--unit', 'u1', '--rate', '10', '--event', 'reward', '--event-window', '-0.5,0.5', '--aligned-out', al, '--out', out], io);
+    const trace = readCsv(out).rows;
+    const { head, rows } = readCsv(al);
+    expect(head).toEqual(['offset_s', 'n', 'predicted_mean', 'predicted_sem']);
+    expect(rows.length).toBe(10);
+    // Offset 0 is row 5; events at 1 s and 2 s are grid samples 10 and 20 of the 10 Hz trace.
+    expect(rows[5][0]).toBe(0);
+    expect(rows[5][1]).toBe(2);
+    expect(rows[5][2]).toBeCloseTo((trace[10][1] + trace[20][1]) / 2, 5);
+    expect(io.err.join('')).toMatch(/aligned on reward: 2 events/);
+    await expect(c2.run(['demo', '--event', 'lick', '--aligned-out', al, '--out', out], captureIo())).rejects.toThrow(/no events with this label/);
+    await expect(c2.run(['demo', '--event', 'reward', '--out', out], captureIo())).rejects.toThrow(/go together/);
+  });
   it.each([
     [['demo', '--kernel', 'GCaMP99', '--out', 'x.csv'], /unknown kernel.*jGCaMP8f/],
     [['demo', '--kernel', 'double:200,20', '--out', 'x.csv'], /rise < decay/],

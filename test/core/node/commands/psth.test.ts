@@ -81,6 +81,21 @@ describe('tagbench psth', () => {
     await expect(cmd.run([...argv], captureIo())).rejects.toThrow(msg);
     expect(existsSync(out)).toBe(false);
   });
+  it('writes a time-warped PSTH between anchors (hand-counted)', async () => {
+    // Anchors trial_start -> reward: 5 -> 10 s and 15 -> 20 s, both 5 s, so the template is [0, 5] and
+    // nothing is stretched. Window 1 s before / after; 1 s bins from -1 s. Spikes in template time:
+    // trial 1: 4.0, 4.4, 4.5 | 5.0, 5.2, 5.99 (11.0 is at the window's end, excluded); trial 2: 4.1 | 5.7.
+    // Bin [4, 5): 4 spikes / 2 s = 2 Hz; bin [5, 6): 4 / 2 s = 2 Hz; others 0.
+    const io = captureIo();
+    expect(await cmd.run(['demo', '--unit', 'a1', '--warp', 'trial_start,reward', '--window', '-1,1', '--bin', '1000', '--by', 'none'], io)).toBe(0);
+    const rows = io.out.join('').trim().split('\n');
+    expect(rows[0]).toBe('unit,anchors,group,n_trials,bin_start_s,bin_center_s,rate_hz,sem_hz');
+    expect(rows.slice(1).map((l) => l.split(',')[6])).toEqual(['0', '0', '0', '0', '0', '2', '2']);
+    expect(io.err.join('')).toMatch(/template trial_start at 0 s, reward at 5 s; 0 trial\(s\)/);
+    await expect(cmd.run(['demo', '--unit', 'a1', '--warp', 'reward'], captureIo())).rejects.toThrow(/at least two anchor/);
+    await expect(cmd.run(['demo', '--unit', 'a1', '--warp', 'reward,lick'], captureIo())).rejects.toThrow(/no events with this label/);
+    await expect(cmd.run(['demo', '--unit', 'a1', '--warp', 'reward,trial_start'], captureIo())).rejects.toThrow(/no trial has every anchor/);
+  });
   it('prints its usage', async () => {
     const io = captureIo();
     expect(await cmd.run(['--help'], io)).toBe(0);

@@ -225,6 +225,10 @@ describe('NWB through loadSession and the CLI', () => {
     expect(text).toContain('/intervals/laser_pulses  [TimeIntervals, 6 rows]');
     expect(text).toContain('A run would use:');
     expect(text.indexOf('A run would use:')).toBeLessThan(text.indexOf('Session: pulse_table (NWB file)'));
+    const out2: string[] = [];
+    expect(await runCli(['inspect', path('session_uint8.nwb')], { stdout: (t) => void out2.push(t), stderr: () => {}, isTty: false })).toBe(0);
+    expect(out2.join('')).toContain('stimulus_site_description = fibre above dorsal raphe, 200 um core');
+    expect(out2.join('')).toContain('observation intervals: 3 units (1 with gaps)');
   });
 
   it('tagbench run on a bad NWB file: exit 2, one paragraph on stderr, no stack', async () => {

@@ -1,7 +1,7 @@
-import { classifyJumps } from '../classify/classify-jumps';
-import { columnSafe } from '../classify/column-safe';
-import { BASE_LAYOUT, GROUP_COLORS, OKABE_ITO, type FigureSpec } from './theme';
-import type { FigureContext, UnitFigure } from './types';
+import { classifyJumps } from '../../classify/classify-jumps';
+import { columnSafe } from '../../classify/column-safe';
+import { BASE_LAYOUT, GROUP_COLORS, OKABE_ITO, type FigureSpec } from '../theme';
+import type { FigureContext, UnitFigure } from '../types';
 
 /**
  * "Jump answers": for each jump kind, the unit's event-averaged PSTH minus

@@ -4,14 +4,14 @@
  * snapshots (numbers rounded to 6 significant digits).
  */
 import { describe, expect, it } from 'vitest';
-import { DEFAULTS } from '../../../core/defaults';
-import { clusterAveragesFigure } from '../../../core/figures/cluster-averages-figure';
-import { jumpAnswersFigure } from '../../../core/figures/jump-answers-figure';
-import { rampFitFigure } from '../../../core/figures/ramp-fit-figure';
-import { VERDICT_STYLE } from '../../../core/figures/theme';
-import { emptyEvents } from '../../../core/model/empty';
-import { analyseRecording } from '../../../core/pipeline/analyse-recording';
-import { taskSession } from '../../helpers/task-session';
+import { DEFAULTS } from '../../../../core/defaults';
+import { clusterAveragesFigure } from '../../../../core/figures/classify/cluster-averages-figure';
+import { jumpAnswersFigure } from '../../../../core/figures/classify/jump-answers-figure';
+import { rampFitFigure } from '../../../../core/figures/classify/ramp-fit-figure';
+import { VERDICT_STYLE } from '../../../../core/figures/theme';
+import { emptyEvents } from '../../../../core/model/empty';
+import { analyseRecording } from '../../../../core/pipeline/analyse-recording';
+import { taskSession } from '../../../helpers/task-session';
 
 function normalise(x: unknown): unknown {
   if (typeof x === 'number') return Number.isFinite(x) ? Number(x.toPrecision(6)) : String(x);

@@ -1,6 +1,6 @@
-import { clusterUnits } from '../classify/cluster-units';
-import { BASE_LAYOUT, GROUP_COLORS, type FigureSpec } from './theme';
-import type { FigureContext, PopulationFigure } from './types';
+import { clusterUnits } from '../../classify/cluster-units';
+import { BASE_LAYOUT, GROUP_COLORS, type FigureSpec } from '../theme';
+import type { FigureContext, PopulationFigure } from '../types';
 
 /**
  * "Response clusters": the class-average z-scored, trial-averaged responses

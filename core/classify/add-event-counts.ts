@@ -1,0 +1,33 @@
+import { lowerBound } from '../align/lower-bound';
+
+/**
+ * Adds the spike counts around every alignment time into one histogram:
+ * out[offset + j] += number of spikes in [a + startS + j binS, a + startS +
+ * (j + 1) binS) summed over alignment times a. Same bins as binCounts (a
+ * spike on an edge counts in the later bin) without the events x bins
+ * matrix, so event-averaged PSTHs of many units allocate nothing.
+ */
+export function addEventCounts(
+  spikeTimes: Float64Array,
+  alignTimes: Float64Array,
+  startS: number,
+  binS: number,
+  nBins: number,
+  out: Float64Array,
+  offset = 0,
+): void {
+  const n = spikeTimes.length;
+  for (let k = 0; k < alignTimes.length; k++) {
+    const a = alignTimes[k];
+    if (!Number.isFinite(a)) continue;
+    const lo = a + startS;
+    const hi = lo + nBins * binS;
+    for (let i = lowerBound(spikeTimes, lo); i < n; i++) {
+      const t = spikeTimes[i];
+      if (t >= hi) break;
+      let j = Math.floor((t - lo) / binS);
+      if (j >= nBins) j = nBins - 1;
+      out[offset + j]++;
+    }
+  }
+}
