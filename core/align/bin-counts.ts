@@ -1,4 +1,4 @@
-import { lowerBound } from './lower-bound';
+import { addWindowCounts } from './add-window-counts';
 
 /**
  * Peri-event spike counts: for each alignment time a_k, the counts of spikes
@@ -15,20 +15,9 @@ export function binCounts(
   nBins: number,
 ): Float64Array {
   const out = new Float64Array(alignTimes.length * nBins);
-  const n = spikeTimes.length;
   for (let k = 0; k < alignTimes.length; k++) {
     const a = alignTimes[k];
-    if (!Number.isFinite(a)) continue;
-    const lo = a + startS;
-    const hi = lo + nBins * binS;
-    const row = k * nBins;
-    for (let i = lowerBound(spikeTimes, lo); i < n; i++) {
-      const t = spikeTimes[i];
-      if (t >= hi) break;
-      let j = Math.floor((t - lo) / binS);
-      if (j >= nBins) j = nBins - 1; // rounding at the far edge
-      out[row + j]++;
-    }
+    if (Number.isFinite(a)) addWindowCounts(spikeTimes, a + startS, binS, nBins, out, k * nBins);
   }
   return out;
 }

@@ -1,4 +1,4 @@
-import { lowerBound } from '../align/lower-bound';
+import { addWindowCounts } from '../align/add-window-counts';
 
 /**
  * Adds the spike counts around every alignment time into one histogram:
@@ -16,18 +16,8 @@ export function addEventCounts(
   out: Float64Array,
   offset = 0,
 ): void {
-  const n = spikeTimes.length;
   for (let k = 0; k < alignTimes.length; k++) {
     const a = alignTimes[k];
-    if (!Number.isFinite(a)) continue;
-    const lo = a + startS;
-    const hi = lo + nBins * binS;
-    for (let i = lowerBound(spikeTimes, lo); i < n; i++) {
-      const t = spikeTimes[i];
-      if (t >= hi) break;
-      let j = Math.floor((t - lo) / binS);
-      if (j >= nBins) j = nBins - 1;
-      out[offset + j]++;
-    }
+    if (Number.isFinite(a)) addWindowCounts(spikeTimes, a + startS, binS, nBins, out, offset);
   }
 }
