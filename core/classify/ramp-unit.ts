@@ -85,36 +85,56 @@ export function rampUnit(
   for (let j = 0; j < nBins; j++) sxx += (centresS[j] - mx) ** 2;
   let sjj = 0;
   for (let j = 0; j < nBins; j++) sjj += (j - (nBins - 1) / 2) ** 2;
-  const rate = new Float64Array(nBins);
-  for (let k = 0; k < nTrials; k++) {
-    const row = k * nBins;
-    let my = 0;
-    for (let j = 0; j < nBins; j++) {
-      const c = counts[row + j];
-      const e = exposureS ? exposureS[row + j] : binS;
-      const r = e > 0 ? c / e : 0;
-      rate[j] = r;
-      my += r;
-      s1[j] += c;
-      se[j] += e;
-      if (e > 0) sq[j] += (c * c) / e;
-      sr[j] += r;
-      sr2[j] += r * r;
-      total += c;
-      totalE += e;
-    }
-    my /= nBins;
-    if (exposureS) {
+  if (exposureS) {
+    const rate = new Float64Array(nBins);
+    for (let k = 0; k < nTrials; k++) {
+      const row = k * nBins;
+      let my = 0;
+      for (let j = 0; j < nBins; j++) {
+        const c = counts[row + j];
+        const e = exposureS[row + j];
+        const r = e > 0 ? c / e : 0;
+        rate[j] = r;
+        my += r;
+        s1[j] += c;
+        se[j] += e;
+        if (e > 0) sq[j] += (c * c) / e;
+        sr[j] += r;
+        sr2[j] += r * r;
+        total += c;
+        totalE += e;
+      }
+      my /= nBins;
       let sxy = 0;
       for (let j = 0; j < nBins; j++) sxy += (centresS[j] - mx) * (rate[j] - my);
       trialSlopes[k] = sxy / sxx;
-    } else {
-      // Equal bins: integer weights 2j - (nBins - 1) keep the numerator exact, so
-      // trials whose slopes are equal in exact arithmetic tie exactly (ties matter to ranks).
+    }
+  } else {
+    // Equal bins of binS: only non-zero counts change the sums (adding +0 leaves
+    // a sum as it is), so empty bins are skipped; the exposure sums are the same
+    // for every unit. Same operations in the same order as a dense pass.
+    const e = binS;
+    for (let k = 0; k < nTrials; k++) {
+      const row = k * nBins;
+      // Integer weights 2j - (nBins - 1) keep the numerator exact, so trials
+      // whose slopes are equal in exact arithmetic tie exactly (ties matter to ranks).
       let w = 0;
-      for (let j = 0; j < nBins; j++) w += (2 * j - (nBins - 1)) * counts[row + j];
+      for (let j = 0; j < nBins; j++) {
+        const c = counts[row + j];
+        if (c === 0) continue;
+        const r = e > 0 ? c / e : 0;
+        s1[j] += c;
+        if (e > 0) sq[j] += (c * c) / e;
+        sr[j] += r;
+        sr2[j] += r * r;
+        total += c;
+        w += (2 * j - (nBins - 1)) * c;
+      }
       trialSlopes[k] = w / (2 * binS * binS * sjj);
     }
+    const sums = equalExposureSums(binS, nTrials, nBins);
+    se.fill(sums.perBin);
+    totalE = sums.total;
   }
   const meanRate = new Float64Array(nBins);
   const semRate = new Float64Array(nBins);
@@ -178,4 +198,16 @@ export function rampUnit(
     semRate,
     interceptHz: fit ? fit.intercept : NaN,
   };
+}
+
+/** Sum of binS over nTrials (per bin) and over nTrials x nBins cells, added one by one as a dense pass would; the last result is kept (every unit of a session asks the same). */
+let lastSums = { binS: NaN, nTrials: -1, nBins: -1, perBin: 0, total: 0 };
+function equalExposureSums(binS: number, nTrials: number, nBins: number): { perBin: number; total: number } {
+  if (lastSums.binS === binS && lastSums.nTrials === nTrials && lastSums.nBins === nBins) return lastSums;
+  let perBin = 0;
+  for (let k = 0; k < nTrials; k++) perBin += binS;
+  let total = 0;
+  for (let i = 0; i < nTrials * nBins; i++) total += binS;
+  lastSums = { binS, nTrials, nBins, perBin, total };
+  return lastSums;
 }
