@@ -2,8 +2,8 @@
  * Imports a session folder (DESIGN.md section 3, README "Input formats") from
  * any SessionSource: reads session.json if present, the spike table (CSV/TSV
  * or spikes.npy + units.npy), laser pulses (pulses.csv or a laser trace
- * laser.npy), events, trials, unit info, mean waveforms and the raw voltage
- * file; converts times to seconds; hashes every file it reads (SHA-256, as it
+ * laser.npy), events, trials, sampled behaviour (behaviour.csv), unit info,
+ * mean waveforms and the raw voltage file; converts times to seconds; hashes every file it reads (SHA-256, as it
  * streams); and hands the typed columns to buildRecording for validation.
  *
  * The same code runs in Node (CLI, Electron main) and in the browser.
@@ -21,6 +21,7 @@ import { createRawSource } from './create-raw-source';
 import { createSha256, type Sha256 } from './create-sha256';
 import { decodeUtf8 } from './decode-utf8';
 import { detectLaserPulses } from './detect-laser-pulses';
+import type { BehaviourColumns } from './build-behaviour';
 import type { ImportResult, InputFileRecord } from './import-result';
 import { npyToFloat64 } from './npy-to-float64';
 import { parseManifest, type SessionManifest, type TableSection, type TimeUnit } from './parse-manifest';
@@ -43,6 +44,7 @@ const DEFAULT_FILES = {
   events: ['events.csv', 'events.tsv'],
   trials: ['trials.csv', 'trials.tsv'],
   unitInfo: ['unit_info.csv', 'unit_info.tsv'],
+  behaviour: ['behaviour.csv', 'behaviour.tsv'],
 } as const;
 
 export async function importSession(source: SessionSource, options: ImportOptions = {}): Promise<ImportResult> {
@@ -304,6 +306,18 @@ export async function importSession(source: SessionSource, options: ImportOption
     };
   }
 
+  // ---- sampled behavioural variables ------------------------------------------------
+  let behaviour: BehaviourColumns | undefined;
+  const behaviourFile = pick(manifest.behaviour, DEFAULT_FILES.behaviour, 'behaviour');
+  if (behaviourFile) {
+    const B = manifest.behaviour ?? undefined;
+    const tName = col(B, 'time');
+    const t = await readTable(behaviourFile, [{ name: tName, kind: 'number', required: true }], true);
+    const time = t.numbers.get(tName)!;
+    toSeconds(time, unitOf(B), behaviourFile, 'behaviour.time_unit');
+    behaviour = { file: behaviourFile, rowOf: t.rowOf, columns: { time: tName }, time, variables: t.extra };
+  }
+
   // ---- unit info and waveforms ---------------------------------------------------------
   let unitInfo: UnitInfoColumns | undefined;
   const infoFile = pick(manifest.unitInfo, DEFAULT_FILES.unitInfo, 'unit_info');
@@ -349,6 +363,7 @@ export async function importSession(source: SessionSource, options: ImportOption
     ...(pulses ? { pulses } : {}),
     ...(events ? { events } : {}),
     ...(trials ? { trials } : {}),
+    ...(behaviour ? { behaviour } : {}),
     ...(span ? { span } : {}),
     toleranceS: parameters.span.toleranceS,
     ...(raw ? { raw } : {}),
