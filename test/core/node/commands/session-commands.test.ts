@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
@@ -91,10 +91,26 @@ describe('curate, export and report on a simulated session (demo scenario)', () 
     expect(v(csv, 'quality')[(v(csv, 'unit') as string[]).indexOf('7')]).toBe('pass'); // computed stays
     expect(v(csv, 'final_quality')[(v(csv, 'unit') as string[]).indexOf('7')]).toBe('review');
     const run = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
-    expect(run).toMatchObject({ tool: { name: 'tagbench', version: '0.1.0-test' }, command: 'export', createdAt: '2026-03-01T14:05:00.000Z', curation: { unitsCurated: 3, labels: 2, excluded: 1, orphans: [] }, notices: [] });
+    // the same run.json fields as `tagbench run` writes (one builder: core/export/build-run-record.ts)
+    expect(run).toMatchObject({ tool: 'tagbench', version: '0.1.0-test', command: 'export', finishedAt: '2026-03-01T14:05:00.000Z', curation: { unitsCurated: 3, labels: 2, excluded: 1, orphans: [] }, notices: [], outputs: ['units.csv', 'units.tsv', 'units.json'] });
     expect(run.inputs.map((i: { file: string }) => i.file)).toEqual(['pulses.csv', 'spikes.csv']);
-    expect(run.columns).toEqual(names);
-    expect(run.summaries.quality.counts).toBeDefined();
+    expect(run.columns.map((c: { name: string }) => c.name)).toEqual(names);
+    expect(run.steps.quality.counts).toBeDefined();
+    expect(run.recording.units).toBe(opened.table.rowCount);
+  });
+
+  it('exports again into its own earlier output folder (recognised by its run.json), and refuses a foreign folder', async () => {
+    const deps = testDeps(rec);
+    const sf = join(root, 'demo.session.json');
+    const out = join(root, 'export-twice');
+    expect(await makeExportCommand(deps).run([sf, '--out', out, '--format', 'csv'], captureIo())).toBe(0);
+    expect(await makeExportCommand(deps).run([sf, '--out', out, '--format', 'tsv'], captureIo())).toBe(0);
+    expect(readdirSync(out).sort()).toEqual(['run.json', 'units.tsv']);
+    const foreign = join(root, 'foreign');
+    mkdirSync(foreign);
+    writeFileSync(join(foreign, 'notes.txt'), 'keep me');
+    await expect(makeExportCommand(deps).run([sf, '--out', foreign], captureIo())).rejects.toThrow(/is not an earlier tagbench output/);
+    expect(readFileSync(join(foreign, 'notes.txt'), 'utf8')).toBe('keep me');
   });
 
   it('refuses a session whose inputs changed, naming the file, unless told to go on', async () => {
