@@ -1,18 +1,8 @@
 import type { Parameters } from '../defaults';
 import type { InputFileRecord } from '../io/import-result';
+import { summariseRecording } from '../model/summarise-recording';
 import type { Recording, Warning } from '../model/types';
 import type { UnitTable } from '../table/types';
-
-/** Counts of what a recording holds (run.json "recording"). */
-export interface RecordingSummary {
-  readonly units: number;
-  readonly spikes: number;
-  readonly spanS: readonly [number, number];
-  readonly spanSource: Recording['spanSource'];
-  readonly pulses: number;
-  readonly events: number;
-  readonly trials: number;
-}
 
 /** Curation counts, present when the output was made from a curated session. */
 export interface CurationSummary {
@@ -50,21 +40,6 @@ export interface RunRecordInput {
   readonly table: UnitTable;
 }
 
-/** Counts of a recording's contents. */
-function summarizeRecording(rec: Recording): RecordingSummary {
-  let spikes = 0;
-  for (const u of rec.units) spikes += u.spikeTimes.length;
-  return {
-    units: rec.units.length,
-    spikes,
-    spanS: rec.span,
-    spanSource: rec.spanSource,
-    pulses: rec.pulses.onset.length,
-    events: rec.events.time.length,
-    trials: rec.trials.trial.length,
-  };
-}
-
 /**
  * The text of run.json, the provenance record written beside every output
  * folder's tables (DESIGN.md section 3: tool version, parameters, SHA-256 of
@@ -86,7 +61,7 @@ export function buildRunRecord(r: RunRecordInput): string {
     inputs: r.inputs,
     parameterFiles: r.parameterFiles,
     parameters: r.parameters,
-    recording: summarizeRecording(r.recording),
+    recording: (({ units, spikes, spanS, spanSource, pulses }) => ({ units, spikes, spanS, spanSource, pulses, events: r.recording.events.time.length, trials: r.recording.trials.trial.length }))(summariseRecording(r.recording)),
     warnings: r.warnings,
     steps: r.steps,
     ...(r.curation ? { curation: r.curation } : {}),
