@@ -1,6 +1,7 @@
 import type { AnalysisStep } from '../pipeline/types';
 import type { Column } from '../table/types';
 import { QUALITY_VERDICTS, qualityVerdict } from './quality-verdict';
+import { driftSegments } from './drift-segments';
 import { lightWindows } from './light-windows';
 import { unitQuality } from './unit-quality';
 
@@ -32,8 +33,9 @@ export const qualityStep: AnalysisStep = {
     let atLeastHalf = 0;
     // light-evoked spikes (the light test window after each pulse) do not count as drift
     const light = lightWindows(recording.pulses.onset, parameters.light.windowStartMs, parameters.light.windowEndMs);
+    const segments = driftSegments(recording.span[0], recording.span[1], q.driftSegments, light);
     recording.units.forEach((u, i) => {
-      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, light);
+      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, segments);
       cols.isiCount[i] = m.isiViolationCount;
       cols.isiFrac[i] = m.isiViolationFraction;
       cols.cont[i] = m.contamination;

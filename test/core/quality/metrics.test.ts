@@ -7,6 +7,7 @@ import { isiViolations } from '../../../core/quality/isi-violations';
 import { localVariation } from '../../../core/quality/local-variation';
 import { lightWindows } from '../../../core/quality/light-windows';
 import { presenceRatio } from '../../../core/quality/presence-ratio';
+import { driftSegments } from '../../../core/quality/drift-segments';
 import { rateDrift } from '../../../core/quality/rate-drift';
 import { Rng } from '../../../core/random/rng';
 
@@ -138,7 +139,7 @@ describe('rateDrift (our definition: CV and slope of segment rates)', () => {
     [10, 20, 30, 40].forEach((c, s) => {
       for (let i = 0; i < c; i++) times.push(s * 10 + (i + 0.5) * (10 / c));
     });
-    const d = rateDrift(Float64Array.from(times), 0, 40, 4);
+    const d = rateDrift(Float64Array.from(times), driftSegments(0, 40, 4));
     expect(Array.from(d.ratesHz)).toEqual([1, 2, 3, 4]);
     // mean 2.5, population SD sqrt(1.25) -> CV = 0.4472135955
     close(d.cv, Math.sqrt(1.25) / 2.5, 1e-12);
@@ -150,21 +151,21 @@ describe('rateDrift (our definition: CV and slope of segment rates)', () => {
     const base = Array.from({ length: 40 }, (_, k) => k + 0.5);
     const burst = Array.from({ length: 50 }, (_, k) => 35 + k * 0.001);
     const t = Float64Array.from([...base, ...burst].sort((a, b) => a - b));
-    expect(rateDrift(t, 0, 40, 4).ratesHz[3]).toBeCloseTo(6, 12); // (10 + 50) / 10 s without exclusion
+    expect(rateDrift(t, driftSegments(0, 40, 4)).ratesHz[3]).toBeCloseTo(6, 12); // (10 + 50) / 10 s without exclusion
     // exclude [35, 35.1) (the burst) and [10, 15) (half of segment 2, holding 5 regular spikes)
-    const d = rateDrift(t, 0, 40, 4, { startS: Float64Array.of(10, 35), stopS: Float64Array.of(15, 35.1) });
+    const d = rateDrift(t, driftSegments(0, 40, 4, { startS: Float64Array.of(10, 35), stopS: Float64Array.of(15, 35.1) }));
     // segment 2: 5 spikes in 5 s left = 1 Hz; segment 4: 10 spikes in 9.9 s = 1.0101 Hz
     expect(d.ratesHz[1]).toBeCloseTo(1, 12);
     expect(d.ratesHz[3]).toBeCloseTo(10 / 9.9, 12);
     expect(d.cv).toBeLessThan(0.005);
     // a segment left with no time has no rate and is left out
-    const all = rateDrift(t, 0, 40, 4, { startS: Float64Array.of(0), stopS: Float64Array.of(10) });
+    const all = rateDrift(t, driftSegments(0, 40, 4, { startS: Float64Array.of(0), stopS: Float64Array.of(10) }));
     expect(all.ratesHz[0]).toBeNaN();
     expect(Number.isFinite(all.cv)).toBe(true);
   });
   it('is NaN for an empty span or a silent unit', () => {
-    expect(rateDrift(Float64Array.of(1), 0, 0, 4).cv).toBeNaN();
-    const silent = rateDrift(new Float64Array(0), 0, 10, 4);
+    expect(rateDrift(Float64Array.of(1), driftSegments(0, 0, 4)).cv).toBeNaN();
+    const silent = rateDrift(new Float64Array(0), driftSegments(0, 10, 4));
     expect(silent.cv).toBeNaN();
     expect(silent.slopeHzPerMin).toBe(0);
   });
