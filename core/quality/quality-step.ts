@@ -35,7 +35,7 @@ export const qualityStep: AnalysisStep = {
     const light = lightWindows(recording.pulses.onset, parameters.light.windowStartMs, parameters.light.windowEndMs);
     const segments = driftSegments(recording.span[0], recording.span[1], q.driftSegments, light);
     recording.units.forEach((u, i) => {
-      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, segments);
+      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, segments, u.observedIntervals);
       cols.isiCount[i] = m.isiViolationCount;
       cols.isiFrac[i] = m.isiViolationFraction;
       cols.cont[i] = m.contamination;
@@ -58,7 +58,7 @@ export const qualityStep: AnalysisStep = {
         num('isi_violations', cols.isiCount, `Number of ISIs shorter than the refractory period (${q.refractoryMs} ms)`),
         num('isi_violation_fraction', cols.isiFrac, 'Violating ISIs / all ISIs'),
         num('contamination', cols.cont, 'Contaminating fraction, Hill, Mehta & Kleinfeld (2011); empty when undefined (>= 0.5, see quality_reason)'),
-        num('presence_ratio', cols.presence, `Fraction of ${q.presenceBins} equal time bins holding a spike`),
+        num('presence_ratio', cols.presence, `Fraction of ${q.presenceBins} equal time bins holding a spike (only bins the unit was observed in, when the inputs give observation intervals)`),
         num('lv', cols.lv, 'Local variation of ISIs, Shinomoto et al. (2003); 1 for Poisson'),
         num('cv2', cols.cv2, 'CV2 of adjacent ISIs, Holt et al. (1996); 1 for Poisson'),
         num('rate_drift_cv', cols.driftCv, `Coefficient of variation of the rate over ${q.driftSegments} equal segments of the span (light test windows after pulses left out)`),

@@ -34,6 +34,8 @@ export interface UnitQuality {
  * `segments` are the rate-drift segments of the session (driftSegments,
  * computed once for all units, with e.g. lightWindows after each laser
  * pulse left out); by default the span in q.driftSegments plain segments.
+ * `observedIntervals` (NWB obs_intervals) limit the presence ratio to the
+ * time the unit was observed (see presenceRatio).
  * Waveform metrics need `waveform` and a finite `waveformSampleRateHz`.
  */
 export function unitQuality(
@@ -43,6 +45,7 @@ export function unitQuality(
   waveform?: Float64Array,
   waveformSampleRateHz = NaN,
   segments?: DriftSegments,
+  observedIntervals?: Float64Array,
 ): UnitQuality {
   const [t0, t1] = span;
   let a = 0;
@@ -64,7 +67,7 @@ export function unitQuality(
     isiViolationFraction: viol.fraction,
     contamination: cont.value,
     contaminationAtLeastHalf: cont.atLeastHalf,
-    presenceRatio: presenceRatio(s, t0, t1, q.presenceBins),
+    presenceRatio: presenceRatio(s, t0, t1, q.presenceBins, observedIntervals),
     lv: localVariation(s),
     cv2: cv2(s),
     rateDriftCv: drift.cv,

@@ -107,6 +107,18 @@ describe('presenceRatio (fraction of equal bins holding a spike; common practice
     expect(presenceRatio(t, 0, 0, 10)).toBeNaN();
     expect(presenceRatio(t, 0, 10, 0)).toBeNaN();
   });
+  it('counts only bins the unit was observed in, when observation intervals are given (our rule: at least half the bin)', () => {
+    const t = Float64Array.of(0, 0.5, 3.2, 7.999, 10);
+    // observed [0, 4.5) and [7.2, 10]: bins 0-3 fully, bin 4 half (counts), bin 7 0.8 (counts), bins 8-9:
+    // eligible 0,1,2,3,4,7,8,9 = 8 bins; occupied among them: 0, 3, 7, 9 -> 4 / 8
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(0, 4.5, 7.2, 10))).toBe(0.5);
+    // a bin 0.4 inside observed time does not count: [0, 4.4) -> bins 0-3 eligible; occupied 0 and 3 -> 2 / 4
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(0, 4.4))).toBe(0.5);
+    // observed over the whole span = no intervals given
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(0, 10))).toBe(presenceRatio(t, 0, 10, 10));
+    // never observed inside the span: undefined
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(20, 30))).toBeNaN();
+  });
 });
 
 describe('autocorrelogram', () => {
