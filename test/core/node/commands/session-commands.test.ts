@@ -65,6 +65,33 @@ describe('curate, export and report on a simulated session (demo scenario)', () 
     );
   });
 
+  it('undoes the last save from the command line, and redoes it with a second --undo', async () => {
+    const deps = testDeps(rec);
+    const curate = makeCurateCommand(deps);
+    const sf = join(root, 'undo.session.json');
+    await expect(curate.run([sf, '--undo'], captureIo())).rejects.toThrow(/session file not found/);
+    expect(await curate.run([sf, '--create', data], captureIo())).toBe(0);
+    await expect(curate.run([sf, '--undo'], captureIo())).rejects.toThrow(/nothing to undo/);
+    expect(await curate.run([sf, '--unit', '2', '--label', 'borderline'], captureIo())).toBe(0);
+    expect(await curate.run([sf, '--unit', '4', '--exclude'], captureIo())).toBe(0);
+    const state = () => {
+      const u = loadSessionFile(sf).session.curation.units;
+      return { two: u['2']?.labels.tag?.value ?? null, four: u['4']?.include?.value ?? null };
+    };
+    expect(state()).toEqual({ two: 'borderline', four: false });
+    const io = captureIo();
+    expect(await curate.run([sf, '--undo'], io)).toBe(0);
+    expect(io.out.join('')).toMatch(/^Restored the version of undo\.session\.json saved at .* \(1 curated unit\(s\); the undone version, 2 unit\(s\), is now undo\.session\.json\.bak: run --undo again to redo\)\.\n$/);
+    expect(state()).toEqual({ two: 'borderline', four: null });
+    expect(await curate.run([sf, '--undo'], captureIo())).toBe(0);
+    expect(state()).toEqual({ two: 'borderline', four: false });
+    // a broken session file is never "undone" over: the backup is loaded and the undo refused
+    const broken = readFileSync(sf, 'utf8').slice(0, 50);
+    writeFileSync(sf, broken);
+    await expect(curate.run([sf, '--undo'], captureIo())).rejects.toThrow(/its backup was loaded, so there is no later version to undo/);
+    expect(readFileSync(sf, 'utf8')).toBe(broken);
+  });
+
   it('exports CSV, TSV and JSON with computed and final verdicts, and run.json; the files read back equal the table', async () => {
     const deps = testDeps(rec);
     const sf = join(root, 'demo.session.json');
