@@ -1,5 +1,5 @@
-import { gallopBound } from '../light/gallop-bound';
 import { lowerBound } from './lower-bound';
+import { lowerBoundNear } from './lower-bound-near';
 
 /**
  * Adds the counts of spikes in nBins consecutive bins [lo + j*binS,
@@ -10,9 +10,9 @@ import { lowerBound } from './lower-bound';
  *
  * hint (optional): an index near the window's first spike, e.g. the value
  * returned for the previous window when windows come in time order; the
- * search then gallops outward from it (O(log distance)) instead of a binary
- * search over the whole train. Any hint gives the same counts.
- * Returns the index of the window's first spike (the next call's hint).
+ * search then walks on from it (lowerBoundNear) instead of a binary search
+ * over the whole train. Any hint gives the same counts.
+ * Returns the index just past the window's last spike (the next call's hint).
  */
 export function addWindowCounts(
   spikeTimes: ArrayLike<number>,
@@ -25,13 +25,13 @@ export function addWindowCounts(
 ): number {
   const n = spikeTimes.length;
   const hi = lo + nBins * binS;
-  const first = hint >= 0 ? gallopBound(spikeTimes, lo, hint) : lowerBound(spikeTimes, lo);
-  for (let i = first; i < n; i++) {
+  let i = hint >= 0 ? lowerBoundNear(spikeTimes, lo, hint) : lowerBound(spikeTimes, lo);
+  for (; i < n; i++) {
     const t = spikeTimes[i];
     if (t >= hi) break;
     let j = Math.floor((t - lo) / binS);
     if (j >= nBins) j = nBins - 1; // rounding at the far edge
     out[offset + j]++;
   }
-  return first;
+  return i;
 }

@@ -1,5 +1,5 @@
 import { addWindowCounts } from '../align/add-window-counts';
-import { gallopBound } from '../light/gallop-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { benjaminiHochberg } from '../stats/benjamini-hochberg';
@@ -108,12 +108,12 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
     };
   });
   const counts = new Float64Array(nPsth);
-  // Spikes in [a, b) from a hint near a (galloping search; same counts as countInWindow).
+  // Spikes in [a, b) searched from a hint near a (lowerBoundNear; same counts as countInWindow).
   let hint = 0;
   const inWindow = (st: Float64Array, a: number, b: number): number => {
     if (!(b > a)) return 0;
-    hint = gallopBound(st, a, hint);
-    return gallopBound(st, b, hint) - hint;
+    hint = lowerBoundNear(st, a, hint);
+    return lowerBoundNear(st, b, hint) - hint;
   };
 
   for (let u = 0; u < nUnits; u++) {

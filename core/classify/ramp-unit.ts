@@ -1,7 +1,4 @@
-import { chiSquareSf } from '../stats/distributions';
-import { linearFit } from '../stats/linear-fit';
-import { poissonGlm } from '../stats/poisson-glm';
-import { wilcoxonSignedRank } from '../stats/wilcoxon-signed-rank';
+import { countTables, equalExposureSums, rampSummary, TABLE_SIZE } from './ramp-sums';
 
 /** Ramp statistics of one unit over one set of aligned trials. */
 export interface RampUnitResult {
@@ -71,11 +68,13 @@ export function rampUnit(
 ): RampUnitResult {
   const nBins = centresS.length;
   const trialSlopes = new Float64Array(nTrials);
-  const s1 = new Float64Array(nBins); // sum of counts
-  const se = new Float64Array(nBins); // sum of exposure
-  const sq = new Float64Array(nBins); // sum of count^2 / exposure
-  const sr = new Float64Array(nBins); // sum of per-trial rates
-  const sr2 = new Float64Array(nBins); // sum of squared per-trial rates
+  // Per-bin sums as plain arrays (allocated on the JS heap: typed arrays this
+  // size each cost an external allocation, which adds up over units x conditions).
+  const s1: number[] = new Array<number>(nBins).fill(0); // sum of counts
+  const se: number[] = new Array<number>(nBins).fill(0); // sum of exposure
+  const sq: number[] = new Array<number>(nBins).fill(0); // sum of count^2 / exposure
+  const sr: number[] = new Array<number>(nBins).fill(0); // sum of per-trial rates
+  const sr2: number[] = new Array<number>(nBins).fill(0); // sum of squared per-trial rates
   let total = 0;
   let totalE = 0;
   let mx = 0;
@@ -114,6 +113,8 @@ export function rampUnit(
     // a sum as it is), so empty bins are skipped; the exposure sums are the same
     // for every unit. Same operations in the same order as a dense pass.
     const e = binS;
+    // c / e and c^2 / e for small counts, computed once (the same divisions, so the same values).
+    const tab = countTables(e);
     for (let k = 0; k < nTrials; k++) {
       const row = k * nBins;
       // Integer weights 2j - (nBins - 1) keep the numerator exact, so trials
@@ -122,9 +123,10 @@ export function rampUnit(
       for (let j = 0; j < nBins; j++) {
         const c = counts[row + j];
         if (c === 0) continue;
-        const r = e > 0 ? c / e : 0;
+        const small = c < TABLE_SIZE && e > 0;
+        const r = small ? tab.rate[c] : e > 0 ? c / e : 0;
         s1[j] += c;
-        if (e > 0) sq[j] += (c * c) / e;
+        if (e > 0) sq[j] += small ? tab.square[c] : (c * c) / e;
         sr[j] += r;
         sr2[j] += r * r;
         total += c;
@@ -136,78 +138,5 @@ export function rampUnit(
     se.fill(sums.perBin);
     totalE = sums.total;
   }
-  const meanRate = new Float64Array(nBins);
-  const semRate = new Float64Array(nBins);
-  for (let j = 0; j < nBins; j++) {
-    meanRate[j] = se[j] > 0 ? s1[j] / se[j] : NaN;
-    const m = sr[j] / nTrials;
-    const v = nTrials > 1 ? (sr2[j] - nTrials * m * m) / (nTrials - 1) : NaN;
-    semRate[j] = Math.sqrt(Math.max(0, v) / nTrials);
-  }
-  const meanRateHz = nTrials > 0 && totalE > 0 ? total / totalE : NaN;
-  const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate) : null;
-  const third = Math.max(1, Math.floor(nBins / 3));
-  let early = 0;
-  let late = 0;
-  for (let j = 0; j < third; j++) {
-    early += meanRate[j];
-    late += meanRate[nBins - 1 - j];
-  }
-  const test = nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
-
-  let glmSlopePerS = NaN;
-  let glmLrtP = NaN;
-  let glmDispersion = NaN;
-  if (nTrials > 0 && total > 0 && nBins >= 2) {
-    const X = new Float64Array(nBins * 2);
-    const offset = new Float64Array(nBins);
-    for (let j = 0; j < nBins; j++) {
-      X[2 * j] = 1;
-      X[2 * j + 1] = centresS[j] - mx;
-      offset[j] = Math.log(se[j]);
-    }
-    const g = poissonGlm(X, 2, s1, { offset });
-    if (g.converged) {
-      glmSlopePerS = g.coefficients[1];
-      glmLrtP = chiSquareSf(Math.max(0, g.nullDeviance - g.deviance), 1);
-      let x2 = 0;
-      for (let j = 0; j < nBins; j++) {
-        const lambda = g.fitted[j] / se[j];
-        x2 += sq[j] / lambda - 2 * s1[j] + lambda * se[j];
-      }
-      const df = nTrials * nBins - 2;
-      glmDispersion = df > 0 ? x2 / df : NaN;
-    }
-  }
-  return {
-    nTrials,
-    meanRateHz,
-    slopeHzPerS: fit ? fit.slope : NaN,
-    slopeRelPerS: fit && meanRateHz > 0 ? fit.slope / meanRateHz : NaN,
-    r2: fit ? fit.r2 : NaN,
-    lateEarlyRatio: early > 0 ? late / early : NaN,
-    trialSlopes,
-    p: test ? test.p : NaN,
-    direction: test ? test.direction : 0,
-    statistic: test ? test.statistic : NaN,
-    nNonZero: test ? test.n : 0,
-    glmSlopePerS,
-    glmLrtP,
-    glmDispersion,
-    meanRate,
-    semRate,
-    interceptHz: fit ? fit.intercept : NaN,
-  };
-}
-
-/** Sum of binS over nTrials (per bin) and over nTrials x nBins cells, added one by one as a dense pass would; the last result is kept (every unit of a session asks the same). */
-let lastSums = { binS: NaN, nTrials: -1, nBins: -1, perBin: 0, total: 0 };
-function equalExposureSums(binS: number, nTrials: number, nBins: number): { perBin: number; total: number } {
-  if (lastSums.binS === binS && lastSums.nTrials === nTrials && lastSums.nBins === nBins) return lastSums;
-  let perBin = 0;
-  for (let k = 0; k < nTrials; k++) perBin += binS;
-  let total = 0;
-  for (let i = 0; i < nTrials * nBins; i++) total += binS;
-  lastSums = { binS, nTrials, nBins, perBin, total };
-  return lastSums;
+  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE }, centresS, minTrials, exactMaxN);
 }

@@ -1,4 +1,4 @@
-import { gallopBound } from '../light/gallop-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 
 /**
  * Mean firing rate of one unit as a function of time-in-trial over a set of
@@ -14,7 +14,7 @@ import { gallopBound } from '../light/gallop-bound';
  * reused (a 1 ms grid over seconds is tens of kilobytes, and allocating them
  * per unit cost more than the counting), and the profile returned stays
  * valid until the next call with that scratch. Trials in order of start time
- * walk the spike train once (galloping search from the previous trial).
+ * walk the spike train once (each search starts where the previous trial ended).
  */
 export interface ReferenceProfile {
   /** Mean rate (Hz) over time-in-trial [a, b), NaN when not covered. */
@@ -72,11 +72,12 @@ export function referenceProfile(
     cover[0] += 1;
     cover[covered] -= 1;
     const end = s + covered * resolutionS;
-    hint = gallopBound(spikeTimes, s, hint);
-    for (let i = hint; i < spikeTimes.length && spikeTimes[i] < end; i++) {
+    let i = lowerBoundNear(spikeTimes, s, hint);
+    for (; i < spikeTimes.length && spikeTimes[i] < end; i++) {
       const j = Math.floor((spikeTimes[i] - s) / resolutionS);
       if (j < covered) count[j]++;
     }
+    hint = i;
   }
   // Cumulative integral of the mean rate (spikes per trial), NaN once coverage ends.
   let c = 0;

@@ -17,8 +17,8 @@ export function midRanks(values: ArrayLike<number>): { ranks: Float64Array; tieS
   // Sort a copy together with the original positions (sortWithIndex: several
   // times faster than TypedArray sort), NaN moved to the end first, then walk
   // runs of equal values: a run at sorted positions [i, j) gets rank (i + 1 + j) / 2.
-  const sorted = new Float64Array(n);
-  const index = new Int32Array(n);
+  if (buffers.sorted.length < n) buffers = { sorted: new Float64Array(2 * n), index: new Int32Array(2 * n) };
+  const { sorted, index } = buffers; // reused across calls (not re-entrant; nothing escapes)
   let m = 0;
   let back = n;
   for (let k = 0; k < n; k++) {
@@ -48,3 +48,5 @@ export function midRanks(values: ArrayLike<number>): { ranks: Float64Array; tieS
   for (let k = m; k < n; k++) ranks[index[k]] = 0.5;
   return { ranks, tieSum };
 }
+
+let buffers = { sorted: new Float64Array(0), index: new Int32Array(0) };
