@@ -1,3 +1,4 @@
+import { lowerBound } from '../align/lower-bound';
 import type { Parameters } from '../defaults';
 import { InputError } from '../errors';
 import type { Recording } from '../model/types';
@@ -132,10 +133,11 @@ export function classifyProgressRamps(recording: Recording, params: Parameters['
 
   const nUnits = recording.units.length;
   const counts = new Float64Array(nW * nBins);
+  const sampleStarts = Int32Array.from(starts, (a) => lowerBound(b.time, a));
   const units: ProgressRampUnitResult[] = [];
   const p = new Float64Array(nUnits);
   for (let u = 0; u < nUnits; u++) {
-    progressSpikeCounts(recording.units[u].spikeTimes, b.time, values, starts, stops, lo!, width, nBins, counts);
+    progressSpikeCounts(recording.units[u].spikeTimes, b.time, values, starts, stops, lo!, width, nBins, counts, sampleStarts);
     const r = progressRampUnit(counts, occupancy, nW, centres, params.minTrials, params.exactMaxN);
     units.push(r);
     p[u] = r.p;

@@ -1,4 +1,4 @@
-import { gallopBound } from '../light/gallop-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 
 /**
  * Time spent by a sampled variable in each of nBins equal bins [lo + j w,
@@ -13,7 +13,7 @@ import { gallopBound } from '../light/gallop-bound';
  * before the first or after the last sample is not counted.
  *
  * Inputs: sample times sorted strictly increasing (BehaviourSamples), windows
- * in any order (searches gallop from the previous window, so time order is
+ * in any order (searches walk on from the previous window, so time order is
  * fastest). Edge cases: empty or reversed windows give zero rows; fewer than
  * two samples give zeros. Reference: the definition above, checked by hand
  * on piecewise-linear paths in test/core/classify/progress-ramps.test.ts.
@@ -37,7 +37,7 @@ export function progressOccupancy(
     if (!(b > a)) continue;
     const row = k * nBins;
     // Segment i runs from sample i to sample i + 1; the first one holding a.
-    hint = gallopBound(time, a, hint);
+    hint = lowerBoundNear(time, a, hint);
     let i = time[hint] > a ? hint - 1 : hint;
     for (; i < n - 1 && time[i] < b; i++) {
       const t0 = Math.max(a, time[i]);

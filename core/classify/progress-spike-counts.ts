@@ -1,3 +1,4 @@
+import { lowerBoundNear } from '../align/lower-bound-near';
 import { gallopBound } from '../light/gallop-bound';
 
 /**
@@ -9,8 +10,11 @@ import { gallopBound } from '../light/gallop-bound';
  * [lo, hi], before the first or after the last sample are not counted.
  * Written into out (windows x bins, row-major), which is zeroed first.
  *
- * Searches gallop from the previous window (windows in time order walk the
- * spike train and the samples once). Reference: the definition, with
+ * Searches walk on from the previous window and the previous spike
+ * (lowerBoundNear: windows in time order read the spike train and the
+ * samples in order). sampleStarts (optional, the same for every unit): per
+ * window, an index near its first sample (e.g. lowerBound(time, start)),
+ * computed once per session instead of once per unit. Reference: the definition, with
  * progressOccupancy the same path, so counts / occupancy is a rate per bin;
  * tested in test/core/classify/progress-ramps.test.ts.
  */
@@ -24,12 +28,14 @@ export function progressSpikeCounts(
   binWidth: number,
   nBins: number,
   out: Float64Array,
+  sampleStarts?: Int32Array,
 ): Float64Array {
   out.fill(0);
   const n = time.length;
   if (n < 2) return out;
   const hi = lo + nBins * binWidth;
   const last = time[n - 1];
+  const rate = (n - 1) / (last - time[0]); // mean samples per second
   let spikeHint = 0;
   let sampleHint = 0;
   for (let k = 0; k < starts.length; k++) {
@@ -37,12 +43,16 @@ export function progressSpikeCounts(
     const b = stops[k];
     if (!(b > a)) continue;
     const row = k * nBins;
-    spikeHint = gallopBound(spikeTimes, a, spikeHint);
-    for (let s = spikeHint; s < spikeTimes.length; s++) {
+    if (sampleStarts) sampleHint = sampleStarts[k];
+    let s = lowerBoundNear(spikeTimes, a, spikeHint);
+    for (; s < spikeTimes.length; s++) {
       const t = spikeTimes[s];
       if (t >= b || t > last) break;
       // Segment holding t: time[i] <= t < time[i + 1] (t = last sample: the last segment).
-      sampleHint = gallopBound(time, t, sampleHint);
+      // Guess the sample from the mean sampling rate (exact for regular sampling),
+      // then correct by a galloping search (irregular sampling costs O(log error)).
+      const guess = sampleHint + Math.floor((t - time[sampleHint < n ? sampleHint : n - 1]) * rate);
+      sampleHint = gallopBound(time, t, guess < sampleHint ? sampleHint : guess);
       let i = time[sampleHint] > t ? sampleHint - 1 : sampleHint;
       if (i >= n - 1) i = n - 2;
       const x = values[i] + ((values[i + 1] - values[i]) * (t - time[i])) / (time[i + 1] - time[i]);
@@ -51,6 +61,7 @@ export function progressSpikeCounts(
       if (j >= nBins) j = nBins - 1;
       out[row + j]++;
     }
+    spikeHint = s;
   }
   return out;
 }

@@ -59,6 +59,35 @@ describe('progressOccupancy and progressSpikeCounts (worked by hand)', () => {
   });
 });
 
+describe('progressSpikeCounts on irregular samples', () => {
+  it('equals a brute-force count (every sample scanned for every spike), with and without window hints', () => {
+    const rng = new Rng(9);
+    const st: number[] = [];
+    for (let t = 0; t < 200; t += 0.005 + 0.06 * rng.uniform() + (rng.uniform() < 0.01 ? 2 : 0)) st.push(t); // irregular, with gaps
+    const time = Float64Array.from(st);
+    const x = Float64Array.from(time, (t) => Math.sin(t / 3) + 0.1 * rng.normal());
+    const spikes = Float64Array.from({ length: 3000 }, () => -5 + 210 * rng.uniform()).sort();
+    const starts = Float64Array.from({ length: 40 }, (_, k) => -2 + 5 * k);
+    const stops = Float64Array.from(starts, (a) => a + 3);
+    const [lo, w, nb] = [-0.8, 0.2, 8];
+    const want = new Float64Array(starts.length * nb);
+    starts.forEach((a, k) => {
+      for (const t of spikes) {
+        if (t < a || t >= stops[k] || t < time[0] || t > time[time.length - 1]) continue;
+        let i = 0;
+        while (i < time.length - 2 && time[i + 1] <= t) i++;
+        const v = x[i] + ((x[i + 1] - x[i]) * (t - time[i])) / (time[i + 1] - time[i]);
+        if (v < lo || v > lo + nb * w) continue;
+        want[k * nb + Math.min(nb - 1, Math.floor((v - lo) / w))]++;
+      }
+    });
+    const got = progressSpikeCounts(spikes, time, x, starts, stops, lo, w, nb, new Float64Array(want.length));
+    expect(Array.from(got)).toEqual(Array.from(want));
+    const hints = Int32Array.from(starts, (a) => Math.max(0, time.findIndex((t) => t >= a)));
+    expect(Array.from(progressSpikeCounts(spikes, time, x, starts, stops, lo, w, nb, new Float64Array(want.length), hints))).toEqual(Array.from(want));
+  });
+});
+
 describe('progressRampUnit', () => {
   it('per-trial slope = OLS on points repeated by their integer occupancy; pooled slope likewise', () => {
     const centres = Float64Array.from([0.5, 1.5, 2.5, 3.5]);
