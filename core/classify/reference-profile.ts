@@ -83,7 +83,7 @@ export function referenceProfile(
   let c = 0;
   for (let j = 0; j < nGrid; j++) {
     c += cover[j];
-    const add = c > 0 ? count[j] / c : NaN;
+    const add = c > 0 ? (count[j] === 0 ? 0 : count[j] / c) : NaN; // 0 / c = 0: most grid bins are empty
     integral[j + 1] = integral[j] + add;
   }
   return {
