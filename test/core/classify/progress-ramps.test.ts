@@ -290,6 +290,24 @@ describe('classifyProgressRamps on simulated approaches', () => {
     expect(plain.columns.some((c) => c.name.startsWith('progress_'))).toBe(false);
   });
 
+  it('warped windows (anchorEvent): each trial from its approach start to reward', () => {
+    const rec = approachSession(71, 40, [{ rateHz: 12, shape: 1, change: 1, gainSd: 0 }, { rateHz: 6, shape: 2, change: 0, gainSd: 0 }]);
+    // Approach starts 0.5 s after each trial start (approachSession's layout).
+    const onsets = Array.from(rec.trials.start, (s) => s + 0.5);
+    const all = [...Array.from(rec.events.time, (t, i) => ({ t, label: rec.events.label[i], trial: rec.events.trial[i] })), ...onsets.map((t, k) => ({ t, label: 'approach_on', trial: k + 1 }))].sort((a, b) => a.t - b.t);
+    const warped: Recording = {
+      ...rec,
+      events: { time: Float64Array.from(all, (e) => e.t), label: all.map((e) => e.label), trial: Float64Array.from(all, (e) => e.trial), kind: all.map(() => '') },
+    };
+    const r = classifyProgressRamps(warped, params({ anchorEvent: 'approach_on' }))!;
+    expect(r.nWindows).toBe(40);
+    // Every window runs over the whole approach, so the percentiles span almost all of [0, 1].
+    expect(r.range[0]).toBeLessThan(0.02);
+    expect(r.range[1]).toBeGreaterThan(0.98);
+    expect(r.verdict[0]).toBe('up');
+    close(r.units[0].slopeHzPerUnit, 12, 0.25); // rate 12 (1 + progress): 12 Hz per unit of progress
+  });
+
   it('names the parameter when the variable is missing', () => {
     const rec = approachSession(61, 6, [{ rateHz: 5, shape: 1, change: 0, gainSd: 0 }]);
     expect(() => classifyProgressRamps(rec, params({ progressVariable: 'speed' }))).toThrow(InputError);
