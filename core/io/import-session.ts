@@ -82,6 +82,16 @@ export async function importSession(source: SessionSource, options: ImportOption
     }
     return table;
   };
+  /** The header names of a delimited file (reads up to its first line break). */
+  const headerOf = async (file: string): Promise<readonly string[]> => {
+    const parser = createDelimitedParser({ file, columns: [], keepExtra: true });
+    for await (const chunk of source.stream(file)) {
+      const nl = chunk.indexOf(10);
+      parser.push(nl >= 0 ? chunk.subarray(0, nl + 1) : chunk);
+      if (nl >= 0) break;
+    }
+    return parser.finish().header;
+  };
   const pick = (section: TableSection | null | undefined, defaults: readonly string[], key: string): string | null => {
     if (section === null) return null;
     if (section?.file) {
@@ -312,10 +322,18 @@ export async function importSession(source: SessionSource, options: ImportOption
   if (behaviourFile) {
     const B = manifest.behaviour ?? undefined;
     const tName = col(B, 'time');
-    const t = await readTable(behaviourFile, [{ name: tName, kind: 'number', required: true }], true);
+    // Every column but time is a numeric variable: read the header line first, so that
+    // the parser converts them as numbers while streaming (kept as text, a 1 kHz tracking
+    // file would cost a string per cell) and names the row of any value that is not one.
+    const header = await headerOf(behaviourFile);
+    const names = header.filter((h) => h !== tName && h !== '');
+    const t = await readTable(behaviourFile, [
+      { name: tName, kind: 'number', required: true },
+      ...names.map((name) => ({ name, kind: 'number' as const, required: true })),
+    ]);
     const time = t.numbers.get(tName)!;
     toSeconds(time, unitOf(B), behaviourFile, 'behaviour.time_unit');
-    behaviour = { file: behaviourFile, rowOf: t.rowOf, columns: { time: tName }, time, variables: t.extra };
+    behaviour = { file: behaviourFile, rowOf: t.rowOf, columns: { time: tName }, time, variables: new Map(names.map((n) => [n, t.numbers.get(n)!])) };
   }
 
   // ---- unit info and waveforms ---------------------------------------------------------

@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../../../core/errors';
+import { buildBehaviour } from '../../../core/io/build-behaviour';
 import { importSession } from '../../../core/io/import-session';
 import { memorySource } from '../../helpers/memory-source';
 
@@ -47,8 +48,8 @@ describe('behaviour.csv', () => {
   });
 
   it('names file, row, column and value for each error', async () => {
-    expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\n1,abc\n' })).toMatch(/^behaviour\.csv, row 3, column "x": the value is not a finite number \(a behavioural variable needs a number in every row\) \(value "abc"\)/);
-    expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\n1,\n2,3\n' })).toMatch(/^behaviour\.csv, row 3, column "x": the value is empty or not a finite number/);
+    expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\n1,abc\n' })).toMatch(/^behaviour\.csv, row 3, column "x": the value is not a number \(value "abc"\)/);
+    expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\n1,\n2,3\n' })).toMatch(/^behaviour\.csv, row 3, column "x": the value is empty/);
     expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\n1,inf\n' })).toMatch(/row 3, column "x".*not a finite number/);
     expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\nnan,1\n' })).toMatch(/^behaviour\.csv, row 3, column "time": time is not a finite number/);
     expect(await errorOf({ 'behaviour.csv': 'time,x\n0,0\n1,1\n0,2\n' })).toMatch(/^behaviour\.csv, row 4, column "time": two samples share this time \(also row 2\)/);
@@ -58,5 +59,15 @@ describe('behaviour.csv', () => {
     // Milliseconds labelled as seconds: no overlap with the 2.5 s recording.
     expect(await errorOf({ 'behaviour.csv': 'time,x\n1000,0\n2000,1\n' })).toMatch(/do not overlap the recording \[0, 2\.5\] s; this looks like milliseconds labelled as seconds/);
     expect(await errorOf({ 'session.json': '{"behaviour": {"columns": {"position": "p"}}}', 'behaviour.csv': 'time,x\n0,0\n1,1\n' })).toMatch(/behaviour\.columns\.position.*unknown key/);
+  });
+
+  it('buildBehaviour (any reader): a text column names its first bad cell; binary readers name the element', () => {
+    const rowOf = (i: number) => i + 2;
+    expect(() => buildBehaviour({ file: 'b.csv', rowOf, columns: { time: 'time' }, time: Float64Array.from([0, 1, 2]), variables: new Map([['x', ['1', 'n/a', '3']]]) })).toThrow(
+      /^b\.csv, row 3, column "x": the value is not a finite number \(a behavioural variable needs a number in every row\) \(value "n\/a"\)/,
+    );
+    expect(() => buildBehaviour({ file: 'b.npy', columns: { time: 'time' }, time: Float64Array.from([0, 1, 1]), variables: new Map([['x', Float64Array.from([1, 2, 3])]]) })).toThrow(
+      /^b\.npy, element 2 \(0-based\), column "time": two samples share this time/,
+    );
   });
 });
