@@ -17,9 +17,8 @@ import type { ReportRequest } from './api';
 import type { AnalysisOutcome, EventView, OpenOutcome, PlacedFigure, PopulationView, Progress, SessionFileInput, TableData, TableFormat, UnitSection, UnitView, WorkbenchApi } from './api';
 import { POPULATION_FIGURE_LIST, UNIT_FIGURE_LIST } from './figure-lists';
 import { isVerdictColumn } from '../state/verdict-columns';
-import { importSession } from '../../core/io/import-session';
 import type { InputFileRecord } from '../../core/io/import-result';
-import { createBlobSessionSource } from './blob-session-source';
+import { importSessionFiles, type OpenHdf5Bytes } from './import-session-files';
 
 /**
  * The worker's engine: holds the imported recording and the last analysis,
@@ -36,9 +35,12 @@ export class WorkbenchEngine implements WorkbenchApi {
   private analysisWarnings: readonly Warning[] = [];
   private summaries: Readonly<Record<string, unknown>> = {};
 
+  /** `openHdf5Bytes` replaces the worker's h5wasm opener (tests in Node). */
+  constructor(private readonly openHdf5Bytes?: OpenHdf5Bytes) {}
+
   async open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome> {
     onProgress({ label: `Importing ${name}`, done: 0, total: 1 });
-    const imported = await importSession(createBlobSessionSource(name, files));
+    const imported = await importSessionFiles(name, files, this.openHdf5Bytes);
     this.recording = imported.recording;
     this.sessionParameters = imported.parameterSources;
     this.inputs = imported.inputs;
