@@ -95,12 +95,32 @@ describe.sequential('workbench in a real browser', () => {
     const id = await first.getAttribute('data-unit');
     await first.dblclick();
     await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).toBe(`Unit ${id}`);
+    await wb.page.locator('.unit-main .plot[data-drawn=true]').first().waitFor({ timeout: LONG });
+    await shot('4-unit-page');
+    // Figures draw when scrolled near; scroll through every one and wait until it is drawn.
+    const figures = wb.page.locator('.unit-main .plot');
+    await figures.first().waitFor({ timeout: LONG });
+    const n = await figures.count();
+    expect(n).toBeGreaterThanOrEqual(8);
+    for (let i = 0; i < n; i++) {
+      await figures.nth(i).scrollIntoViewIfNeeded();
+      await expect.poll(() => figures.nth(i).getAttribute('data-drawn'), { timeout: LONG }).toBe('true');
+    }
     const plot = wb.page.locator('[data-testid=plot-event-response][data-drawn=true]');
-    await plot.waitFor({ timeout: LONG });
+    await plot.scrollIntoViewIfNeeded();
     expect(await plot.locator('.scatterlayer .trace').count()).toBeGreaterThan(1);
     expect(await plot.locator('.xtitle').textContent()).toMatch(/^Time from \w+ \(s\)$/);
     expect(await plot.locator('.ytitle').first().textContent()).toMatch(/\((spikes\/s|Hz)\)|Trial|Event/);
-    await shot('4-unit-page');
+    // The busiest unit's raster (tens of thousands of spikes) is drawn as SVG paths, never as plotly's WebGL notice.
+    const rasterTicks = await plot.locator('.scatterlayer .trace path.js-line').evaluateAll((ps) => ps.reduce((k, p) => k + ((p.getAttribute('d') ?? '').match(/M/g)?.length ?? 0), 0));
+    expect(rasterTicks).toBeGreaterThan(1000);
+    await shot('4a-unit-page-event-response');
+    const notices = await figures.evaluateAll((els) => els.filter((e) => e.querySelector('.no-webgl') || /WebGL is not supported/.test((e as HTMLElement).innerText)).map((e) => (e as HTMLElement).dataset.testid));
+    expect(notices).toEqual([]);
+    expect(await wb.page.locator('canvas').count()).toBe(0);
+    await wb.page.locator('.unit-main').evaluate((el) => el.scrollIntoView());
+    await wb.page.getByTestId('plot-light-following').scrollIntoViewIfNeeded();
+    await shot('4c-unit-page-light-following');
     // Next unit by keyboard.
     await wb.page.keyboard.press('Control+ArrowDown');
     await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).not.toBe(`Unit ${id}`);
