@@ -76,6 +76,28 @@ async function openToTable(page: Page, url: string): Promise<number> {
 }
 
 /**
+ * One switch, run inside the page (plain JavaScript text: tsx's helpers do not
+ * exist there): press Ctrl+Down, then poll every animation frame until the
+ * title changed and every figure in view is drawn.
+ */
+const SWITCH_ONCE = `new Promise((resolve, reject) => {
+  const prev = document.querySelector('[data-testid=unit-title]')?.textContent;
+  const t0 = performance.now();
+  document.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowDown', code: 'ArrowDown', ctrlKey: true, bubbles: true }));
+  const check = () => {
+    const title = document.querySelector('[data-testid=unit-title]')?.textContent;
+    const visible = Array.from(document.querySelectorAll('.unit-main .plot')).filter((p) => {
+      const b = p.getBoundingClientRect();
+      return b.bottom > 0 && b.top < innerHeight;
+    });
+    if (title !== prev && visible.length > 0 && visible.every((p) => p.dataset.drawn === 'true')) resolve({ ms: performance.now() - t0, inView: visible.length });
+    else if (performance.now() - t0 > 120000) reject(new Error('a switch took over 2 minutes'));
+    else requestAnimationFrame(check);
+  };
+  requestAnimationFrame(check);
+})`;
+
+/**
  * Unit-to-unit switches on the Unit page (Ctrl+Down), each timed from the key
  * press until the new unit's title and every figure in view are drawn (the
  * page draws figures as they come into view: renderer/components/Plot.tsx).
@@ -89,25 +111,7 @@ async function unitSwitches(page: Page): Promise<{ times: number[]; inView: numb
   const times: number[] = [];
   let inView = 0;
   for (let i = 0; i < switches; i++) {
-    const r = await page.evaluate(
-      () =>
-        new Promise<{ ms: number; inView: number }>((resolve, reject) => {
-          const prev = document.querySelector('[data-testid=unit-title]')?.textContent;
-          const t0 = performance.now();
-          document.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowDown', code: 'ArrowDown', ctrlKey: true, bubbles: true }));
-          const check = () => {
-            const title = document.querySelector('[data-testid=unit-title]')?.textContent;
-            const visible = Array.from(document.querySelectorAll('.unit-main .plot')).filter((p) => {
-              const b = p.getBoundingClientRect();
-              return b.bottom > 0 && b.top < innerHeight;
-            });
-            if (title !== prev && visible.length > 0 && visible.every((p) => (p as HTMLElement).dataset.drawn === 'true')) resolve({ ms: performance.now() - t0, inView: visible.length });
-            else if (performance.now() - t0 > 120_000) reject(new Error('a switch took over 2 minutes'));
-            else requestAnimationFrame(check);
-          };
-          requestAnimationFrame(check);
-        }),
-    );
+    const r = (await page.evaluate(SWITCH_ONCE)) as { ms: number; inView: number };
     times.push(Math.round(r.ms));
     inView = r.inView;
   }

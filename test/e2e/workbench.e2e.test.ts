@@ -178,6 +178,16 @@ describe.sequential('workbench in a real browser', () => {
   it('shows the population and the keyboard help', async () => {
     await wb.page.getByRole('button', { name: 'Population' }).click();
     await wb.page.locator('.population').waitFor({ timeout: LONG });
+    // Units per verdict: every bar carries its count as text, drawn above the bars and inside the figure (not clipped).
+    const counts = wb.page.locator('[data-testid=plot-verdict-counts][data-drawn=true]');
+    await counts.waitFor({ timeout: LONG });
+    const fit = await counts.evaluate((el) => {
+      const box = el.querySelector('svg.main-svg')!.getBoundingClientRect();
+      const labels = Array.from(el.querySelectorAll('.bars .point text')).map((t) => t.getBoundingClientRect());
+      return { labels: labels.length, inside: labels.every((r) => r.top >= box.top && r.bottom <= box.bottom) };
+    });
+    expect(fit.labels).toBeGreaterThan(10);
+    expect(fit.inside).toBe(true);
     await shot('6-population');
     await wb.page.keyboard.press('?');
     await wb.page.getByRole('dialog', { name: 'Keyboard shortcuts' }).waitFor();
