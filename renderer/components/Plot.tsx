@@ -1,5 +1,5 @@
 import type Plotly from 'plotly.js-dist-min';
-import { useEffect, useRef } from 'react';
+import { useEffect, useLayoutEffect, useRef } from 'react';
 import type { FigureSpec } from '../../core/figures/theme';
 import { figureHeight } from '../figures/figure-height';
 import { forScreen } from '../figures/for-screen';
@@ -14,7 +14,16 @@ export const PLOT_CONFIG = {
 } as const;
 
 /** Figures this far outside the scrolled view are drawn ahead, CSS px. */
-const AHEAD_PX = 400;
+const AHEAD_PX = 200;
+
+/** The nearest ancestor that scrolls vertically, or null (the window). */
+function scrollParent(el: HTMLElement): HTMLElement | null {
+  for (let p = el.parentElement; p; p = p.parentElement) {
+    const o = getComputedStyle(p).overflowY;
+    if (o === 'auto' || o === 'scroll') return p;
+  }
+  return null;
+}
 
 /**
  * Draws one figure spec (plain Plotly JSON from core/figures) at its height
@@ -50,7 +59,8 @@ export function Plot({ spec, testId }: { spec: FigureSpec; testId?: string }) {
       });
   };
 
-  useEffect(() => {
+  // Layout effect: the figure is marked as not drawn in the same commit that brings the new spec.
+  useLayoutEffect(() => {
     const el = ref.current;
     if (!el) return;
     el.dataset.drawn = 'false';
@@ -61,12 +71,14 @@ export function Plot({ spec, testId }: { spec: FigureSpec; testId?: string }) {
   useEffect(() => {
     const el = ref.current;
     if (!el) return;
+    // Observed against the scrolling area the figure sits in (the screen's content pane), so the
+    // margin of AHEAD_PX applies there (against the window, the pane's clipping would hide it).
     const io = new IntersectionObserver(
       (entries) => {
         state.current.near = entries.some((e) => e.isIntersecting);
         drawPending.current();
       },
-      { rootMargin: `${AHEAD_PX}px 0px` },
+      { root: scrollParent(el), rootMargin: `${AHEAD_PX}px 0px` },
     );
     io.observe(el);
     return () => {

@@ -124,7 +124,13 @@ export function UnitPageScreen(props: {
           </table>
         </section>
       </aside>
-      <div className="unit-main" data-testid="unit-figures">
+      {/* Until the new unit's figures arrive, the previous unit's are dimmed, never shown as this unit's. */}
+      <div
+        className={view && view.unitIndex !== unitIndex ? 'unit-main stale' : 'unit-main'}
+        data-testid="unit-figures"
+        data-unit={view?.unitId}
+        aria-busy={!view || view.unitIndex !== unitIndex}
+      >
         {!view && <p className="muted">Drawing...</p>}
         {view &&
           SECTIONS.map((s) => {
