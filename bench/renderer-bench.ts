@@ -84,17 +84,25 @@ const SWITCH_ONCE = `new Promise((resolve, reject) => {
   const prev = document.querySelector('[data-testid=unit-title]')?.textContent;
   const t0 = performance.now();
   document.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowDown', code: 'ArrowDown', ctrlKey: true, bubbles: true }));
+  // Arrival of the new unit's figures: the moment React writes them into the page (a mutation
+  // observer runs before the figures' drawing, which follows in the same task).
   let arrived = NaN;
+  const figs = document.querySelector('[data-testid=unit-figures]');
+  const mo = new MutationObserver(() => {
+    if (arrived === arrived) return;
+    const title = document.querySelector('[data-testid=unit-title]')?.textContent;
+    if (title !== prev && 'Unit ' + figs.dataset.unit === title) arrived = performance.now() - t0;
+  });
+  mo.observe(figs, { attributes: true, attributeFilter: ['data-unit'] });
   const check = () => {
     const title = document.querySelector('[data-testid=unit-title]')?.textContent;
     const shown = 'Unit ' + document.querySelector('[data-testid=unit-figures]')?.dataset.unit;
-    if (title !== prev && shown === title && arrived !== arrived) arrived = performance.now() - t0;
     const pane = document.querySelector('.content').getBoundingClientRect();
     const visible = Array.from(document.querySelectorAll('.unit-main .plot')).filter((p) => {
       const b = p.getBoundingClientRect();
       return b.bottom > pane.top && b.top < pane.bottom;
     });
-    if (title !== prev && shown === title && visible.length > 0 && visible.every((p) => p.dataset.drawn === 'true')) resolve({ ms: performance.now() - t0, arrived, inView: visible.length });
+    if (title !== prev && shown === title && visible.length > 0 && visible.every((p) => p.dataset.drawn === 'true')) (mo.disconnect(), resolve({ ms: performance.now() - t0, arrived, inView: visible.length }));
     else if (performance.now() - t0 > 120000) reject(new Error('a switch took over 2 minutes'));
     else requestAnimationFrame(check);
   };
