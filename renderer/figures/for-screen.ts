@@ -14,8 +14,8 @@ export interface ScreenSize {
 
 /** Device pixels per CSS pixel assumed for merging (2 = sharp on high-density screens too). */
 const PIXEL_DENSITY = 2;
-/** Smallest tick height on screen, CSS px: below this a tick of a dense raster would fade out. */
-const MIN_TICK_PX = 1.5;
+/** Smallest tick height on screen, CSS px: below this a tick of a dense raster reads as a dot or fades out (neighbouring rows may overlap, as tick markers of this size did). */
+const MIN_TICK_PX = 3;
 /** Rasters with more ticks than this are drawn as one path even when they came as SVG traces. */
 const PATH_MIN_TICKS = 2000;
 

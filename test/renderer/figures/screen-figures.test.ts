@@ -130,12 +130,12 @@ describe('forScreen', () => {
     expect(out.layout).toBe(s.layout);
   });
 
-  it('sizes ticks to at least 1.5 px when many rows share a panel, and 0.8 rows otherwise', () => {
-    // 600 rows on (460 - 84) * 0.55 = 206.8 px: 0.345 px per row, so half height = 0.75 / 0.345 rows.
+  it('sizes ticks to at least 3 px when many rows share a panel, and 0.8 rows otherwise', () => {
+    // 600 rows on (460 - 84) * 0.55 = 206.8 px: 0.345 px per row, so half height = 1.5 / 0.345 rows.
     const many = raster(Array.from({ length: 600 }, () => [0]));
     const t = forScreen(spec([many]), { widthPx: 800, heightPx: 460 }).data[0];
     const half = ((t.y as number[])[1] - (t.y as number[])[0]) / 2;
-    expect(half).toBeCloseTo(0.75 / (((460 - 84) * 0.55) / 600), 9);
+    expect(half).toBeCloseTo(1.5 / (((460 - 84) * 0.55) / 600), 9);
     const few = forScreen(spec([raster([[0], [0], [0]])]), { widthPx: 800, heightPx: 460 }).data[0];
     expect(((few.y as number[])[1] - (few.y as number[])[0]) / 2).toBeCloseTo(0.4, 12);
   });
