@@ -1,8 +1,8 @@
 import type Plotly from 'plotly.js-dist-min';
 import { useEffect, useLayoutEffect, useRef } from 'react';
 import type { FigureSpec } from '../../core/figures/theme';
-import { figureHeight } from '../figures/figure-height';
-import { forScreen } from '../figures/for-screen';
+import { figureHeight } from '../../core/figures/draw/figure-height';
+import { forScreen } from '../../core/figures/draw/for-screen';
 import { loadPlotly } from './load-plotly';
 
 /** Plotly options shared by every figure on screen. */

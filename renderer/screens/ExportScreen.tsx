@@ -1,7 +1,7 @@
 import type Plotly from 'plotly.js-dist-min';
 import { loadPlotly } from '../components/load-plotly';
-import { figureHeight } from '../figures/figure-height';
-import { forScreen } from '../figures/for-screen';
+import { figureHeight } from '../../core/figures/draw/figure-height';
+import { forScreen } from '../../core/figures/draw/for-screen';
 import { useEffect, useState } from 'react';
 import type { CurationHistory } from '../../core/curation/history';
 import type { FigureSpec } from '../../core/figures/theme';

@@ -47,7 +47,7 @@ export const lightFollowingFigure: UnitFigure = {
     // Two panels on one pulse axis: reliability on top, latency below; the
     // shared x axis sits under the lower panel, the legend above the plot, and
     // the axis titles make their own room (automargin), so nothing overlaps at
-    // laptop size (460 px tall on screen: renderer/figures/figure-height.ts).
+    // laptop size (460 px tall on screen: core/figures/draw/figure-height.ts).
     return {
       data,
       layout: {

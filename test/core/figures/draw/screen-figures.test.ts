@@ -1,15 +1,15 @@
-// The screen's drawing of figure specs (renderer/figures): rasters as one SVG path
+// The screen's drawing of figure specs (core/figures/draw): rasters as one SVG path
 // with ticks merged per pixel column, min-max decimation of long lines, heights.
 // Checked against brute-force recomputation on the same inputs (pixel occupancy
 // and per-column extrema computed directly here), and with fast-check properties.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { FigureSpec } from '../../../core/figures/theme';
-import { decimateLine } from '../../../renderer/figures/decimate-line';
-import { figureHeight, ONE_PANEL_PX, STACKED_PX } from '../../../renderer/figures/figure-height';
-import { forScreen } from '../../../renderer/figures/for-screen';
-import { isTickTrace } from '../../../renderer/figures/is-tick-trace';
-import { ticksAsPath } from '../../../renderer/figures/ticks-as-path';
+import type { FigureSpec } from '../../../../core/figures/theme';
+import { decimateLine } from '../../../../core/figures/draw/decimate-line';
+import { figureHeight, ONE_PANEL_PX, STACKED_PX } from '../../../../core/figures/draw/figure-height';
+import { forScreen } from '../../../../core/figures/draw/for-screen';
+import { isTickTrace } from '../../../../core/figures/draw/is-tick-trace';
+import { ticksAsPath } from '../../../../core/figures/draw/ticks-as-path';
 
 /** Ticks of a path trace as [x, row] (segment midpoints). */
 function ticksOf(t: Record<string, unknown>): [number, number][] {

@@ -1,4 +1,4 @@
-import type { FigureSpec } from '../../core/figures/theme';
+import type { FigureSpec } from '../theme';
 import { decimateLine } from './decimate-line';
 import { isTickTrace } from './is-tick-trace';
 import { ticksAsPath } from './ticks-as-path';

@@ -1,4 +1,4 @@
-import type { FigureSpec } from '../../core/figures/theme';
+import type { FigureSpec } from '../theme';
 
 /** Height of a figure with one panel, px: readable at laptop size with a legend below. */
 export const ONE_PANEL_PX = 340;
