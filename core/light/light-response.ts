@@ -191,7 +191,7 @@ export function lightResponse(
   const J = sch.windows;
   const classes = nBins + 1;
   const m = sch.saltPulses.length;
-  let salt: SaltResult = { p: NaN, informationDifference: NaN, testDistance: NaN, nullMedian: NaN, nullCount: 0 };
+  let salt: SaltResult = { p: NaN, pCalibrated: NaN, informationDifference: NaN, testDistance: NaN, nullMedian: NaN, nullCount: 0, rows: 0 };
   let baselineHz = NaN;
   let baselineSource: LightResponse['baselineSource'] = 'none';
   let baselineReliability = NaN;

@@ -36,21 +36,31 @@ describe('lightSchedule', () => {
         const a = s.anchor[i] - (j + 1) * s.windowS;
         const b = s.anchor[i] - j * s.windowS;
         expect(inLight(a, b), `pulse ${i} window ${j}`).toBe(false);
-        expect(a).toBeGreaterThanOrEqual(0);
+        expect(a).toBeGreaterThanOrEqual(-1e-12); // span start 0 (rounding of 10 x 30 x 0.01 s)
       }
     }
-    // Within one window index, pulses of a train use different stretches of time.
-    const firstTrain = Array.from(s.saltPulses).filter((i) => i < 10);
-    const starts = new Set(firstTrain.map((i) => s.anchor[i]));
-    expect(starts.size).toBe(firstTrain.length);
-    // The m-th pulse's baseline ends m x 50 ms before the train starts.
-    expect(s.anchor[3]).toBeCloseTo(s.onset[0] - 0.15, 12);
+    // No stretch of time serves two pulses (exchangeability of test and baseline rows):
+    // every baseline window of every SALT pulse is disjoint from every other one.
+    const starts: number[] = [];
+    for (const i of s.saltPulses) for (let j = 0; j < s.windows; j++) starts.push(s.anchor[i] - (j + 1) * s.windowS);
+    starts.sort((a, b) => a - b);
+    for (let k = 1; k < starts.length; k++) expect(starts[k] - starts[k - 1]).toBeGreaterThanOrEqual(s.windowS - 1e-9);
+    // Blocks stacked back from the train's start: the m-th pulse's block ends m x J windows before it.
+    expect(s.anchor[3]).toBeCloseTo(s.onset[0] - 3 * s.windows * s.windowS, 12);
+    // Light-free time: 3 s before the first train, 3 s - 0.56 s = 2.44 s before the others;
+    // J = 30 (0.3 s blocks) gives 10 + 5 x 8 = 50 of 60 pulses (>= 80 %), J = 31 only 10 + 5 x 7.
+    expect(s.windows).toBe(30);
+    expect(s.saltPulses.length).toBe(50);
+    expect(Array.from(s.saltPulses.slice(8, 12))).toEqual([8, 9, 10, 11]);
+    expect(Array.from(s.saltPulses.slice(16, 20))).toEqual([16, 17, 20, 21]);
   });
   it('too little light-free time: fewer windows, then SALT cannot run with a reason', () => {
-    const { pulses, endS } = makePulses({ single: 50, periodS: 0.3 });
+    const { pulses, endS } = makePulses({ single: 50, periodS: 0.3, startS: 0.5 });
     const s = lightSchedule(pulses, [0, endS], p);
     // 300 ms period - 10 ms window - 100 ms guard = 190 ms light-free: 19 windows.
     expect(s.windows).toBe(19);
+    // Asking for 20 windows joins all pulses into one group (190 ms < 200 ms), whose 0.5 s
+    // of light-free time cannot give 80 % of the pulses 20 windows each.
     const t = lightSchedule(pulses, [0, endS], { ...p, saltMinWindows: 20 });
     expect(t.windows).toBe(0);
     expect(t.saltPulses.length).toBe(0);
