@@ -22,16 +22,24 @@ export const DEFAULTS = {
     saltBinMs: 1,
     /** SALT p threshold of the identified rule. */
     alphaSalt: 0.01,
+    /**
+     * Which SALT p the rule and `tag_p` use: 'calibrated' (rank of the test histogram among all
+     * J + 1 histograms: close to uniform under no light effect, but never below 1 / (J + 1)),
+     * 'published' (the authors' p, conservative), or 'auto' (own choice, the default):
+     * calibrated when 1 / (J + 1) < alphaSalt on this session's schedule, else published.
+     */
+    saltP: 'auto' as 'auto' | 'calibrated' | 'published',
     /** Mean first-spike latency limit of the identified rule, ms. */
     maxLatencyMs: 6,
     /** Waveform correlation needed when waveforms exist (common practice). */
     minWaveformR: 0.9,
     /**
-     * Light-free time before each pulse cut into SALT baseline windows, ms
-     * (50 windows of 10 ms: 1,225 null distances, p resolution 0.0008).
-     * Common practice: a few hundred ms before the pulse.
+     * Most light-free time before each pulse cut into SALT baseline windows, ms
+     * (100 windows of 10 ms: 4,950 null distances; the calibrated p can reach
+     * 1/101 < 0.01 where the schedule leaves that much light-free time per pulse).
+     * Common practice: a few hundred ms to a second before the pulse.
      */
-    saltBaselineMs: 500,
+    saltBaselineMs: 1000,
     /** Fewest baseline windows SALT runs with (REFERENCES.md: p < 0.01 needs >= ~15 windows). */
     saltMinWindows: 15,
     /** Share of pulses that must keep the full baseline before fewer windows are used (own choice). */

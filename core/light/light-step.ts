@@ -7,7 +7,9 @@ import { artefactFlags } from './artefact-flags';
 import { createLightScratch, lightResponse } from './light-response';
 import { lightFreeSpikes } from './light-free-spikes';
 import { lightSchedule } from './light-schedule';
+import { ruleSaltP } from './rule-salt-p';
 import { ruleTrust, type RuleTrust } from './rule-trust';
+import { saltPChoice } from './salt-p-choice';
 import { simulationIntervals } from './simulation-intervals';
 import { tagVerdict } from './tag-verdict';
 import { trustCell } from './trust-cell';
@@ -23,6 +25,7 @@ function checkParameters(p: Parameters['light']): void {
   if (!(p.saltBaselineMs >= 0)) bad('saltBaselineMs', p.saltBaselineMs, 'must be >= 0');
   if (!(p.lightGuardMs >= 0)) bad('lightGuardMs', p.lightGuardMs, 'must be >= 0');
   for (const k of ['alphaSalt', 'alphaCount', 'trustPower', 'saltMinPulseFraction'] as const) if (!(p[k] > 0 && p[k] <= 1)) bad(k, p[k], 'must lie in (0, 1]');
+  if (!['auto', 'calibrated', 'published'].includes(p.saltP)) bad('saltP', p.saltP, 'must be "auto", "calibrated" or "published"');
   if (!(p.artefactJitterMs > 0)) bad('artefactJitterMs', p.artefactJitterMs, 'must be > 0');
   if (!(p.offsetWindowMs > 0)) bad('offsetWindowMs', p.offsetWindowMs, 'must be > 0');
   for (const k of ['trustNullSimulations', 'trustPowerSimulations', 'trustBudget', 'waveformChannels', 'waveformMaxSpikes', 'waveformMinSpikes', 'saltMinWindows'] as const) {
@@ -57,6 +60,7 @@ export const lightStep: AnalysisStep = {
     const units = recording.units;
     const nU = units.length;
     const sch = lightSchedule(recording.pulses, recording.span, p);
+    const choice = saltPChoice(sch.windows, p);
     const warnings: Warning[] = [];
     const num = () => new Float64Array(nU).fill(NaN);
     const tag: string[] = new Array(nU).fill('untagged');
@@ -66,6 +70,8 @@ export const lightStep: AnalysisStep = {
     const jitter = num();
     const reliability = num();
     const saltP = num();
+    const saltPublished = num();
+    const saltCalibrated = num();
     const medianLatency = num();
     const evokedLatency = num();
     const evokedJitter = num();
@@ -120,7 +126,11 @@ export const lightStep: AnalysisStep = {
         latency[u] = r.meanLatencyS * 1000;
         jitter[u] = r.jitterS * 1000;
         reliability[u] = r.reliability;
-        saltP[u] = r.salt.p;
+        // tag_p never 0: a published p of 0 (below its resolution) is written as 1/#null.
+        const rp = ruleSaltP(r, choice.kind);
+        saltP[u] = rp === 0 ? 1 / r.salt.nullCount : rp;
+        saltPublished[u] = r.salt.p;
+        saltCalibrated[u] = r.salt.pCalibrated;
         medianLatency[u] = r.medianLatencyS * 1000;
         evokedLatency[u] = r.evokedLatencyS * 1000;
         evokedJitter[u] = r.evokedJitterS * 1000;
@@ -164,6 +174,9 @@ export const lightStep: AnalysisStep = {
         count: sch.n - sch.saltPulses.length,
       });
     }
+    if (sch.n > 0 && !sch.saltProblem && choice.note) {
+      warnings.push({ code: choice.canPass ? 'salt-p-published' : 'salt-p-resolution', message: `${choice.note}${choice.canPass ? '' : ': no unit can be "tagged" by SALT; give more light-free time between pulses (or fewer, sparser trains), or set light.saltP to "published" or "auto"'}.`, count: 1 });
+    }
     if (badChannels) warnings.push({ code: 'waveform-channel-invalid', message: 'Unit channel metadata not a channel of the raw file; the largest-amplitude channel was used instead.', count: badChannels });
     if (waveformProblems) warnings.push({ code: 'waveform-match-missing', message: 'Some units had too few evoked or spontaneous spikes (or a flat waveform) for a waveform match; their tag_waveform_r is empty.', count: waveformProblems });
 
@@ -173,11 +186,13 @@ export const lightStep: AnalysisStep = {
       ms('tag_latency_ms', latency, 'Mean first-spike latency after pulse onset in the test window, ms'),
       ms('tag_jitter_ms', jitter, 'SD of first-spike latency, ms'),
       ms('tag_reliability', reliability, 'Share of pulses with >= 1 spike in the test window'),
-      ms('tag_p', saltP, 'SALT p-value (Kvitsiani et al. 2013)'),
+      ms('tag_p', saltP, `SALT p-value the rule uses (light.saltP = ${p.saltP}: here the ${choice.kind} p); never 0: a p below the resolution is written as the resolution`),
       { name: 'tag_reason', kind: 'string', values: reason, description: 'Why the verdict: what failed, then SALT p, latency, jitter, reliability' },
       ms('tag_median_latency_ms', medianLatency, 'Median first-spike latency, ms'),
       ms('tag_evoked_latency_ms', evokedLatency, 'Mean latency of the excess spikes in the test window (baseline subtracted), ms'),
       ms('tag_evoked_jitter_ms', evokedJitter, 'SD of the excess spikes latency (baseline subtracted), ms'),
+      ms('tag_salt_p_published', saltPublished, 'SALT p as published (Kvitsiani et al. 2013): #(null distances >= median test distance) / #null; conservative; 0 = below 1/#null'),
+      ms('tag_salt_p_calibrated', saltCalibrated, 'Rank-calibrated SALT p: share of the J + 1 histograms whose median distance to the others is >= the test histogram\'s; >= 1/(J + 1)'),
       ms('tag_salt_i', saltI, 'SALT information difference (median test distance minus median null distance)'),
       ms('tag_count_p', countP, 'Exact Poisson test of the test-window spike count against the baseline rate (one-sided, excess)'),
       ms('tag_evoked_per_pulse', perPulse, 'Spikes in the test window per pulse'),
@@ -219,6 +234,11 @@ export const lightStep: AnalysisStep = {
         pulsesUsed: sch.saltPulses.length,
         nullDistances: (sch.windows * (sch.windows - 1)) / 2,
         problem: sch.saltProblem || null,
+        pSetting: p.saltP,
+        pUsed: sch.windows > 0 ? choice.kind : null,
+        pResolution: sch.windows > 0 ? choice.resolution : null,
+        calibratedPResolution: sch.windows > 0 ? 1 / (sch.windows + 1) : null,
+        pNote: choice.note || null,
       },
       verdicts: {
         tagged: tag.filter((t) => t === 'tagged').length,

@@ -10,11 +10,13 @@ import { lightParams, makePulses } from './helpers';
 
 describe('lightSchedule', () => {
   const p = lightParams();
-  it('single pulses 1 s apart: one group each, 50 windows of 10 ms right before each pulse', () => {
+  it('single pulses 1 s apart: one group each, 89 windows of 10 ms right before each pulse', () => {
     const { pulses, endS } = makePulses({ single: 20, periodS: 1, startS: 5 });
     const s = lightSchedule(pulses, [0, endS], p);
     expect(s.groupCount).toBe(20);
-    expect(s.windows).toBe(50);
+    // 1 s - 10 ms window - 100 ms guard = 890 ms light-free before each pulse (maximum 1,000 ms).
+    expect(s.windows).toBe(89);
+    expect(lightSchedule(pulses, [0, endS], { ...p, saltBaselineMs: 500 }).windows).toBe(50);
     expect(s.saltPulses.length).toBe(20);
     for (let i = 0; i < 20; i++) expect(s.anchor[i]).toBe(s.onset[i]);
     expect(s.nBins).toBe(10);
