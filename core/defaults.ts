@@ -42,7 +42,7 @@ export const DEFAULTS = {
     saltBaselineMs: 1000,
     /** Fewest baseline windows SALT runs with (REFERENCES.md: p < 0.01 needs >= ~15 windows). */
     saltMinWindows: 15,
-    /** Share of pulses that must keep the full baseline before fewer windows are used (own choice). */
+    /** Share of pulses that should get a baseline block of their own before fewer windows are used (down to saltMinWindows; own choice). */
     saltMinPulseFraction: 0.8,
     /**
      * Time after each pulse's end (or after its test window, whichever is later)

@@ -7,9 +7,12 @@
  * CV = SD (n - 1) / mean of those ISIs; NaN with fewer than 2 ISIs. Poisson
  * firing has CV 1, regular firing < 1, bursty firing > 1 (Softky & Koch 1993,
  * J Neurosci 13:334; from memory).
+ *
+ * keepSpikes = false returns an empty `spikes` and allocates nothing (when only
+ * the CV is wanted).
  */
-export function lightFreeSpikes(spikeTimes: Float64Array, lightIntervals: Float64Array): { spikes: Float64Array; isiCv: number; isiCount: number } {
-  const out = new Float64Array(spikeTimes.length);
+export function lightFreeSpikes(spikeTimes: Float64Array, lightIntervals: Float64Array, keepSpikes = true): { spikes: Float64Array; isiCv: number; isiCount: number } {
+  const out = keepSpikes ? new Float64Array(spikeTimes.length) : new Float64Array(0);
   let n = 0;
   let k = 0;
   const nk = lightIntervals.length;
@@ -25,7 +28,8 @@ export function lightFreeSpikes(spikeTimes: Float64Array, lightIntervals: Float6
       prev = NaN;
       continue;
     }
-    out[n++] = t;
+    if (keepSpikes) out[n] = t;
+    n++;
     // k indexes the next light interval after t: spikes with the same k are not separated by light.
     if (prev === prev && prevInterval === k) {
       const d = t - prev;
@@ -42,5 +46,5 @@ export function lightFreeSpikes(spikeTimes: Float64Array, lightIntervals: Float6
     const v = (s2 - m * mean * mean) / (m - 1);
     isiCv = mean > 0 ? Math.sqrt(Math.max(0, v)) / mean : NaN;
   }
-  return { spikes: out.slice(0, n), isiCv, isiCount: m };
+  return { spikes: keepSpikes ? out.slice(0, n) : out, isiCv, isiCount: m };
 }

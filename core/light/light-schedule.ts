@@ -80,8 +80,10 @@ export interface LightSchedule {
  *
  * Windows used: the largest J <= saltBaselineMs / window such that at least
  * saltMinPulseFraction of the pulses get a whole block (the earliest pulses of
- * each group); the others are left out of SALT (not out of the other
- * measures). J < saltMinWindows: SALT cannot run and saltProblem says why.
+ * each group); when even saltMinWindows cannot give that many (dense light),
+ * J = saltMinWindows on the pulses that have room. Pulses without a block are
+ * left out of SALT (not out of the other measures). No pulse with
+ * saltMinWindows windows of its own: SALT cannot run and saltProblem says why.
  *
  * Frequency (3 significant digits, so 19.9999 and 20.0001 Hz are one group):
  * the pulse's frequencyHz; when NaN and its train has >= 2 pulses,
@@ -154,26 +156,29 @@ export function lightSchedule(pulses: Pulses, span: readonly [number, number], p
   // a group's pulses stacked back from the group's start (pulse m of the group:
   // [ref - (m + 1) J w, ref - m J w)), so no stretch of time is shared by two
   // pulses or two baseline rows. J = the largest J <= maxWindows for which at
-  // least saltMinPulseFraction of the pulses get a block (the first ones of each group).
+  // least saltMinPulseFraction of the pulses get a block (the first ones of each
+  // group), else saltMinWindows.
   const fits = (J: number): number => {
     let c = 0;
     for (let g = 0; g < groupCount; g++) c += Math.min(groupSize[g], Math.floor(groupFree[g] / (J * windowS) + 1e-9));
     return c;
   };
   const keep = Math.ceil(p.saltMinPulseFraction * n);
-  let best = 0;
-  for (let J = maxWindows; J >= 1 && n > 0; J--) {
-    if (fits(J) >= keep) {
-      best = J;
-      break;
-    }
-  }
+  const minJ = Math.max(1, p.saltMinWindows);
   let windows = 0;
   let saltProblem = '';
   if (n === 0) saltProblem = 'no laser pulses';
-  else if (best < p.saltMinWindows) {
-    saltProblem = `too little light-free time before the pulses for SALT (${best} baseline windows of ${formatNumber(windowS * 1000, 3)} ms for ${Math.round(p.saltMinPulseFraction * 100)} % of pulses; at least ${p.saltMinWindows} needed)`;
-  } else windows = best;
+  else if (maxWindows < minJ || fits(minJ) === 0) {
+    saltProblem = `too little light-free time before the pulses for SALT (no pulse has ${minJ} baseline windows of ${formatNumber(windowS * 1000, 3)} ms of its own; at least ${p.saltMinWindows} needed)`;
+  } else {
+    windows = minJ;
+    for (let J = maxWindows; J > minJ; J--) {
+      if (fits(J) >= keep) {
+        windows = J;
+        break;
+      }
+    }
+  }
   const anchor = new Float64Array(n);
   const available = new Int32Array(n);
   const stack = windows > 0 ? windows : 0;

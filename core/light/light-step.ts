@@ -103,7 +103,7 @@ export const lightStep: AnalysisStep = {
       for (let u = 0; u < nU; u++) {
         const unit = units[u];
         const r = lightResponse(unit.spikeTimes, sch, p, true, scratch);
-        const free = lightFreeSpikes(unit.spikeTimes, sch.lightIntervals);
+        const free = lightFreeSpikes(unit.spikeTimes, sch.lightIntervals, recording.raw !== undefined);
         let wr = NaN;
         if (recording.raw) {
           let ch = metaChannel(unit);

@@ -62,11 +62,16 @@ describe('lightSchedule', () => {
     // 300 ms period - 10 ms window - 100 ms guard = 190 ms light-free: 19 windows.
     expect(s.windows).toBe(19);
     // Asking for 20 windows joins all pulses into one group (190 ms < 200 ms), whose 0.5 s
-    // of light-free time cannot give 80 % of the pulses 20 windows each.
+    // of light-free time gives 2 pulses a block of 20 windows: SALT runs on those two only.
     const t = lightSchedule(pulses, [0, endS], { ...p, saltMinWindows: 20 });
-    expect(t.windows).toBe(0);
-    expect(t.saltPulses.length).toBe(0);
-    expect(t.saltProblem).toMatch(/too little light-free time/);
+    expect(t.windows).toBe(20);
+    expect(Array.from(t.saltPulses)).toEqual([0, 1]);
+    // With 0.1 s before the first pulse no pulse has 20 windows of its own: SALT cannot run.
+    const early = makePulses({ single: 50, periodS: 0.3, startS: 0.1 });
+    const u = lightSchedule(early.pulses, [0, early.endS], { ...p, saltMinWindows: 20 });
+    expect(u.windows).toBe(0);
+    expect(u.saltPulses.length).toBe(0);
+    expect(u.saltProblem).toMatch(/too little light-free time/);
   });
   it('no pulses', () => {
     const s = lightSchedule(emptyPulses(), [0, 100], p);

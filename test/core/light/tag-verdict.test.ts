@@ -93,7 +93,7 @@ describe('tagVerdict', () => {
     expect(v.reason).toMatch(/unreliable/);
   });
   it('SALT cannot run (too little light-free time): a strong answer is at most borderline, with the reason', () => {
-    const short = makePulses({ single: 200, periodS: 0.2 });
+    const short = makePulses({ single: 200, periodS: 0.2, startS: 0.1 });
     const spikes = simulateUnit(new Rng(8), short.pulses, short.endS, 4, 1, { reliability: 0.8, latencyMs: 3, jitterMs: 0.6 });
     const { v } = judge(spikes, {}, NaN, short.pulses, short.endS);
     expect(v.tag).toBe('borderline');
