@@ -12,7 +12,7 @@ import { ruleTrust, type RuleTrust } from './rule-trust';
 import { saltPChoice } from './salt-p-choice';
 import { simulationIntervals } from './simulation-intervals';
 import { tagVerdict } from './tag-verdict';
-import { trustCell } from './trust-cell';
+import { trustCell, type TrustCorner } from './trust-cell';
 import { waveformMatch } from './waveform-match';
 
 /** Checks the light parameters; a bad value is an input error naming the key. */
@@ -91,8 +91,8 @@ export const lightStep: AnalysisStep = {
     const fLat = Array.from({ length: nf }, num);
 
     const cells = new Map<string, { trust: RuleTrust; units: number }>();
-    const cellInput = new Map<string, [number, number]>();
-    const cellOf: string[] = new Array(nU).fill('');
+    const nodeInput = new Map<string, [number, number]>();
+    const cornersOf: TrustCorner[][] = new Array(nU);
     let nullSims = 0;
     let powerSims = 0;
     let badChannels = 0;
@@ -146,22 +146,37 @@ export const lightStep: AnalysisStep = {
           fRel[f][u] = r.frequencyReliability![f];
           fLat[f][u] = r.frequencyLatencyS![f] * 1000;
         }
-        const cell = trustCell(r.baselineHz, free.isiCv);
-        const key = `${cell.rateHz}|${cell.cv}`;
-        cellOf[u] = key;
-        if (!cellInput.has(key)) cellInput.set(key, [r.baselineHz, free.isiCv]);
+        const corners = trustCell(r.baselineHz, free.isiCv);
+        cornersOf[u] = corners;
+        for (const c of corners) {
+          const key = `${c.rateHz}|${c.cv}`;
+          if (!nodeInput.has(key)) nodeInput.set(key, [c.rateHz, c.cv]);
+        }
       }
-      // Trust simulation, one per (rate, CV) cell, within the session's budget.
-      const perCell = p.trustBudget / Math.max(1, cellInput.size * sch.n);
-      nullSims = Math.min(p.trustNullSimulations, Math.max(50, Math.floor(perCell)));
+      // Trust simulation, once per grid node that some unit needs, within the session's budget.
+      const perNode = p.trustBudget / Math.max(1, nodeInput.size * sch.n);
+      nullSims = Math.min(p.trustNullSimulations, Math.max(50, Math.floor(perNode)));
       powerSims = Math.min(p.trustPowerSimulations, Math.max(10, Math.floor(nullSims / 5)));
       const tp = { ...p, trustNullSimulations: nullSims, trustPowerSimulations: powerSims };
-      for (const [key, [rate, cv]] of cellInput) cells.set(key, { trust: ruleTrust(sch, intervals, rate, cv, tp, scratch), units: 0 });
+      const keys = [...nodeInput.keys()].sort((a, b) => nodeInput.get(a)![0] - nodeInput.get(b)![0] || nodeInput.get(a)![1] - nodeInput.get(b)![1]);
+      for (const key of keys) {
+        const [rate, cv] = nodeInput.get(key)!;
+        cells.set(key, { trust: ruleTrust(sch, intervals, rate, cv, tp, scratch), units: 0 });
+      }
+      // Each unit: bilinear interpolation between its nodes (NaN detectable reliability if any node has none).
       for (let u = 0; u < nU; u++) {
-        const c = cells.get(cellOf[u])!;
-        c.units++;
-        falseRate[u] = c.trust.falseRate;
-        minRel[u] = c.trust.minDetectableReliability;
+        let fr = 0;
+        let mr = 0;
+        let nearest = cornersOf[u][0];
+        for (const c of cornersOf[u]) if (c.weight > nearest.weight) nearest = c;
+        cells.get(`${nearest.rateHz}|${nearest.cv}`)!.units++;
+        for (const c of cornersOf[u]) {
+          const node = cells.get(`${c.rateHz}|${c.cv}`)!;
+          fr += c.weight * node.trust.falseRate;
+          mr += c.weight * node.trust.minDetectableReliability;
+        }
+        falseRate[u] = fr;
+        minRel[u] = mr;
       }
     } else {
       warnings.push({ code: 'no-laser-pulses', message: 'The session has no laser pulses: every unit is "untagged" with reason "no laser pulses".', count: 1 });
@@ -213,7 +228,7 @@ export const lightStep: AnalysisStep = {
       columns.push(ms(`tag_latency_${key}_ms`, fLat[f], `Mean first-spike latency on ${what}, ms`));
     }
 
-    const cellList = [...cells.values()].map((c) => ({ ...c.trust, units: c.units }));
+    const cellList = [...cells.values()].map((c) => ({ ...c.trust, unitsNearest: c.units }));
     let expected = 0;
     let counted = 0;
     for (let u = 0; u < nU; u++) if (falseRate[u] === falseRate[u]) {
@@ -246,7 +261,11 @@ export const lightStep: AnalysisStep = {
         untagged: tag.filter((t) => t === 'untagged').length,
       },
       trust: {
-        nullSimulationsPerCell: nullSims,
+        grid: 'nodes at rates 2^k Hz (k = -3 ... 8) x ISI CV 0.5, 1, 2; each unit bilinear in (log2 rate, log2 CV) between its nodes',
+        nodes: cells.size,
+        seed: p.seed,
+        nullSimulationsPerNode: nullSims,
+        nullUnitsSimulated: nullSims * [...cells.values()].filter((c) => c.trust.nullSimulations > 0).length,
         powerSimulationsPerStep: powerSims,
         budget: p.trustBudget,
         responderModel: `one added spike per pulse with probability R at ${p.trustPowerLatencyMs} +- ${p.trustPowerJitterMs} ms (Gaussian); power ${p.trustPower}`,
