@@ -77,6 +77,17 @@ function simulateOn(
   return { buf, n, hit };
 }
 
+/** A uniform in (0, 1) from a 32-bit seed and an index (murmur3 finaliser on both; 32 bits). */
+function hashUniform(seed: number, k: number): number {
+  let h = (seed ^ Math.imul(k, 0x9e3779b1) ^ Math.imul((k / 4294967296) | 0, 0x85ebca6b)) >>> 0;
+  h ^= h >>> 16;
+  h = Math.imul(h, 0x85ebca6b);
+  h ^= h >>> 13;
+  h = Math.imul(h, 0xc2b2ae35);
+  h ^= h >>> 16;
+  return ((h >>> 0) + 0.5) / 4294967296;
+}
+
 function lengthOf(iv: Float64Array): number {
   let t = 0;
   for (let k = 0; k < iv.length; k += 2) t += iv[k + 1] - iv[k];
@@ -107,8 +118,11 @@ function lengthOf(iv: Float64Array): number {
  * Power: the first trustPowerSimulations null trains plus one added spike per
  * pulse with probability R at trustPowerLatencyMs +- trustPowerJitterMs
  * (Gaussian); the same random numbers at every R (common random numbers), R
- * searched by bisection on POWER_GRID assuming power grows with R.
- * minDetectableReliability = smallest grid R with power >= trustPower.
+ * searched by bisection on POWER_GRID assuming power grows with R; each step
+ * stops once its answer (power >= trustPower or not) is certain, so `power`
+ * lists bounds: the value shown is >= trustPower for a passed step and below
+ * it for a failed one. minDetectableReliability = smallest grid R with power
+ * >= trustPower.
  *
  * Seeded by light.seed and the node's rate and CV (not a unit's position), so
  * the numbers do not change when other units are added; bit-for-bit
@@ -169,44 +183,59 @@ export function ruleTrust(
   }
 
   // Power search with common random numbers.
+  // u decides which pulses get an added spike (all of them are needed); the Gaussian
+  // latency z of a pair is drawn only when the pair is first used, from a hash of
+  // (seed, pair), so it is the same at every R and independent of the search order.
   const u = new Float64Array(nPow * n);
-  const z = new Float64Array(nPow * n);
+  const z = new Float64Array(nPow * n).fill(NaN);
   const prng = new Rng(seed ^ 0x5bd1e995);
-  for (let i = 0; i < u.length; i++) {
-    u[i] = prng.uniform();
-    z[i] = prng.normal();
-  }
+  for (let i = 0; i < u.length; i++) u[i] = prng.uniform();
+  const zAt = (k: number): number => {
+    let v = z[k];
+    if (v === v) return v;
+    const a = hashUniform(seed, 2 * k);
+    const b = hashUniform(seed, 2 * k + 1);
+    v = Math.sqrt(-2 * Math.log(a)) * Math.cos(2 * Math.PI * b);
+    z[k] = v;
+    return v;
+  };
   const lat = p.trustPowerLatencyMs / 1000;
   const jit = p.trustPowerJitterMs / 1000;
   const added = new Float64Array(n);
   const powerAt = new Map<number, number>();
-  const measure = (gi: number): number => {
+  // Power at one grid step, stopping as soon as the verdict on trustPower is certain
+  // (hits needed reached, or too many misses); the recorded power is then a bound
+  // (>= trustPower, or < trustPower), reported as hits / responders simulated so far.
+  const need = Math.ceil(p.trustPower * nPow - 1e-9);
+  const measure = (gi: number): boolean => {
     const R = POWER_GRID[gi];
     const cached = powerAt.get(gi);
-    if (cached !== undefined) return cached;
+    if (cached !== undefined) return cached >= p.trustPower;
     let hits = 0;
+    let done = 0;
     for (let s = 0; s < nPow; s++) {
       let m = 0;
-      for (let i = 0; i < n; i++) if (u[s * n + i] < R) added[m++] = sch.onset[i] + Math.max(0.0002, lat + jit * z[s * n + i]);
+      for (let i = 0; i < n; i++) if (u[s * n + i] < R) added[m++] = sch.onset[i] + Math.max(0.0002, lat + jit * zAt(s * n + i));
       const add = added.subarray(0, m).sort();
       if (isTagged(mergeInto(keep[s], keep[s].length, add, m))) hits++;
+      done++;
+      if (hits >= need || done - hits > nPow - need) break;
     }
-    const pw = nPow > 0 ? hits / nPow : NaN;
-    powerAt.set(gi, pw);
-    return pw;
+    const pass = hits >= need;
+    powerAt.set(gi, pass ? Math.max(p.trustPower, hits / nPow) : Math.min(hits / nPow, (need - 1) / nPow));
+    return pass;
   };
   let minDetectableReliability = NaN;
   if (nPow > 0) {
+    // Bisection over the grid; the top (R = 1) is checked last, only if needed.
     let lo = 0;
     let hi = POWER_GRID.length - 1;
-    if (measure(hi) >= p.trustPower) {
-      while (lo < hi) {
-        const mid = (lo + hi) >>> 1;
-        if (measure(mid) >= p.trustPower) hi = mid;
-        else lo = mid + 1;
-      }
-      minDetectableReliability = POWER_GRID[lo];
+    while (lo < hi) {
+      const mid = (lo + hi) >>> 1;
+      if (measure(mid)) hi = mid;
+      else lo = mid + 1;
     }
+    if (lo < POWER_GRID.length - 1 || measure(lo)) minDetectableReliability = POWER_GRID[lo];
   }
   const power = [...powerAt.entries()].sort((a, b) => a[0] - b[0]).map(([gi, pw]) => ({ reliability: POWER_GRID[gi], power: pw }));
   return { ...base, nullSimulations: nNull, falseTagged, screenedOut, falseRate: nNull > 0 ? falseTagged / nNull : NaN, minDetectableReliability, power };
