@@ -102,16 +102,18 @@ function lengthOf(iv: Float64Array): number {
  * Null units: stationary gamma renewal trains (2 ms dead time plus a gamma
  * interval of shape 1 / CV^2; the dead time makes the simulated CV slightly
  * smaller, by 1 - rate x 2 ms), no light effect, simulated only where the
- * analysis looks (simulationIntervals): first the test windows, laid end to
- * end; then the SALT baseline blocks and offset windows, likewise (two
+ * analysis looks (simulationIntervals): the test windows laid end to end,
+ * then the SALT baseline windows, then the offset windows, likewise (three
  * independent stretches of one process: dependence between a test window and
  * the baseline just before it is not carried over). Each unit goes through the
  * very rule the real units get (lightResponse, artefactFlags, tagVerdict; no
- * waveforms). Screen: a unit whose test-window reliability is below
- * minEvokedReliability cannot be `tagged` (its excess reliability is at most
- * its reliability), so when the test windows are disjoint it is counted as not
- * tagged without simulating the rest: exact, and most null units at rates
- * below ~10 Hz stop there. falseRate = share called `tagged` (resolution
+ * waveforms). Screens (when the test windows are disjoint): `tagged` needs an
+ * excess reliability (test-window reliability minus the baseline windows'
+ * spike probability) >= minEvokedReliability, and both are counted while the
+ * spikes are simulated (windows with a spike), so a unit below it (with a
+ * 0.001 margin for window edges computed two ways) is counted as not tagged
+ * without the rest of the rule: exact, and nearly every null unit stops there.
+ * falseRate = share called `tagged` (resolution
  * 1 / trustNullSimulations). When SALT cannot run on the schedule the rule
  * cannot call `tagged` at all: falseRate 0 and power NaN without simulation.
  *
@@ -146,40 +148,61 @@ export function ruleTrust(
   if (sch.windows === 0) return { ...base, nullSimulations: 0, falseTagged: 0, screenedOut: 0, falseRate: 0, minDetectableReliability: NaN, power: [] };
 
   const rng = new Rng(seed);
+  const J = sch.windows;
+  const m = sch.saltPulses.length;
   const testS = lengthOf(iv.test);
-  const restS = lengthOf(iv.rest);
+  const baseS = lengthOf(iv.base);
+  const offS = lengthOf(iv.offset);
   let testBuf = new Float64Array(Math.ceil(testS * rateHz * 1.5) + 16);
-  let restBuf = new Float64Array(Math.ceil(restS * rateHz * 1.5) + 16);
+  let baseBuf = new Float64Array(Math.ceil(baseS * rateHz * 1.5) + 16);
+  let offBuf = new Float64Array(Math.ceil(offS * rateHz * 1.5) + 16);
   let merged = new Float64Array(0);
-  const mergeInto = (a: Float64Array, na: number, b: Float64Array, nb: number): Float64Array => {
-    if (merged.length < na + nb) merged = new Float64Array(na + nb);
+  let merged2 = new Float64Array(0);
+  const merge = (out: Float64Array, a: Float64Array, na: number, b: Float64Array, nb: number): Float64Array => {
     let i = 0;
     let j = 0;
     let k = 0;
-    while (i < na && j < nb) merged[k++] = a[i] <= b[j] ? a[i++] : b[j++];
-    while (i < na) merged[k++] = a[i++];
-    while (j < nb) merged[k++] = b[j++];
-    return merged.subarray(0, k);
+    while (i < na && j < nb) out[k++] = a[i] <= b[j] ? a[i++] : b[j++];
+    while (i < na) out[k++] = a[i++];
+    while (j < nb) out[k++] = b[j++];
+    return out.subarray(0, k);
+  };
+  const mergeInto = (a: Float64Array, na: number, b: Float64Array, nb: number): Float64Array => {
+    if (merged.length < na + nb) merged = new Float64Array(na + nb);
+    return merge(merged, a, na, b, nb);
   };
   const isTagged = (spikes: Float64Array): boolean => {
     const r = lightResponse(spikes, sch, p, false, scratch, p.minEvokedReliability);
     return tagVerdict(r, NaN, artefactFlags(r, NaN, p), p, sch.saltProblem).tag === 'tagged';
   };
+  // Margin of the screens: window edges computed two ways may differ in the last bit.
+  const screenAt = p.minEvokedReliability - 1e-3;
   const keep: Float64Array[] = [];
   let falseTagged = 0;
   let screenedOut = 0;
   for (let s = 0; s < nNull; s++) {
     const t = simulateOn(rng, rateHz, shape, iv.test, testS, testBuf);
     testBuf = t.buf;
-    if (s >= nPow && iv.testDisjoint && t.hit / n < p.minEvokedReliability) {
+    const power = s < nPow;
+    // Screen 1: reliability alone (the excess reliability is at most the reliability).
+    if (!power && iv.testDisjoint && t.hit / n < screenAt) {
       screenedOut++;
       continue;
     }
-    const r = simulateOn(rng, rateHz, shape, iv.rest, restS, restBuf);
-    restBuf = r.buf;
-    const spikes = mergeInto(testBuf, t.n, restBuf, r.n);
+    const b = simulateOn(rng, rateHz, shape, iv.base, baseS, baseBuf);
+    baseBuf = b.buf;
+    // Screen 2: excess reliability over the baseline windows (one interval per window).
+    if (!power && iv.testDisjoint && t.hit / n - b.hit / (J * m) < screenAt) {
+      screenedOut++;
+      continue;
+    }
+    const o = simulateOn(rng, rateHz, shape, iv.offset, offS, offBuf);
+    offBuf = o.buf;
+    if (merged2.length < t.n + b.n) merged2 = new Float64Array(t.n + b.n);
+    const tb = merge(merged2, testBuf, t.n, baseBuf, b.n);
+    const spikes = mergeInto(tb, tb.length, offBuf, o.n);
     if (isTagged(spikes)) falseTagged++;
-    if (s < nPow) keep.push(spikes.slice());
+    if (power) keep.push(spikes.slice());
   }
 
   // Power search with common random numbers.

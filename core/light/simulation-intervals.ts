@@ -6,15 +6,17 @@ import type { LightSchedule } from './light-schedule';
  * - `test`: every pulse's test window [onset + windowStart, onset + windowEnd);
  *   `testDisjoint` is true when no two of them touch (then `test` holds exactly
  *   one interval per pulse, in pulse order);
- * - `rest`: the SALT baseline block of every SALT pulse
- *   [anchor - windows x w, anchor) and the offset window [offset, offset +
- *   offsetWindowS) of every pulse ending at or after its test window (the only
- *   offset windows lightResponse reads), minus nothing else.
+ * - `base`: every SALT baseline window of every SALT pulse (J per pulse, the
+ *   block [anchor - J w, anchor) cut into its windows), one interval each,
+ *   sorted (the blocks are disjoint, so they never overlap; neighbours touch);
+ * - `offset`: the offset window [offset, offset + offsetWindowS) of every pulse
+ *   ending at or after its test window (the only offset windows lightResponse
+ *   reads), merged.
  * The trust simulation simulates spikes only there (spikes elsewhere cannot
  * change any result, as long as SALT can run; without SALT the baseline rate
  * comes from all light-free time and the rule cannot call `tagged` anyway).
  */
-export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): { test: Float64Array; testDisjoint: boolean; rest: Float64Array } {
+export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): { test: Float64Array; testDisjoint: boolean; base: Float64Array; offset: Float64Array } {
   const test: number[] = [];
   let disjoint = true;
   for (let i = 0; i < sch.n; i++) {
@@ -25,17 +27,29 @@ export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): 
       test[test.length - 1] = Math.max(test[test.length - 1], b);
     } else test.push(a, b);
   }
+  const J = sch.windows;
+  const w = sch.windowS;
+  const blocks = Array.from(sch.saltPulses).sort((a, b) => sch.anchor[a] - sch.anchor[b]);
+  const base = new Float64Array(J > 0 ? 2 * J * blocks.length : 0);
+  let k = 0;
+  for (const i of blocks) {
+    const start = sch.anchor[i] - J * w;
+    for (let j = 0; j < J; j++) {
+      // Same window edges as lightResponse: start + j w (the last one ends at the anchor).
+      base[k++] = start + j * w;
+      base[k++] = j === J - 1 ? sch.anchor[i] : start + (j + 1) * w;
+    }
+  }
   const iv: [number, number][] = [];
-  if (sch.windows > 0) for (const i of sch.saltPulses) iv.push([sch.anchor[i] - sch.windows * sch.windowS, sch.anchor[i]]);
   for (let i = 0; i < sch.n; i++) {
     const o = sch.offset[i];
     if (Number.isFinite(o) && o >= sch.onset[i] + sch.windowEndS) iv.push([o, o + offsetWindowS]);
   }
   iv.sort((x, y) => x[0] - y[0] || x[1] - y[1]);
-  const rest: number[] = [];
+  const offset: number[] = [];
   for (const [a, b] of iv) {
-    if (rest.length && a <= rest[rest.length - 1]) rest[rest.length - 1] = Math.max(rest[rest.length - 1], b);
-    else rest.push(a, b);
+    if (offset.length && a <= offset[offset.length - 1]) offset[offset.length - 1] = Math.max(offset[offset.length - 1], b);
+    else offset.push(a, b);
   }
-  return { test: Float64Array.from(test), testDisjoint: disjoint, rest: Float64Array.from(rest) };
+  return { test: Float64Array.from(test), testDisjoint: disjoint, base, offset: Float64Array.from(offset) };
 }
