@@ -2,7 +2,8 @@ import { formatNumber } from '../table/format-number';
 
 /**
  * A p-value as text that never reads "0": a value at or below a test's
- * resolution is written with that resolution ("p<=0.0099 (1/101)" for a
+ * resolution is written with that resolution, rounded up to `digits`
+ * significant digits so the statement stays true ("p<=0.01 (1/101)" for a
  * permutation p whose smallest value is 1 / rows; "p<0.0002 (1/4950)" for
  * SALT's published p, which is 0 when no null distance reaches the test's),
  * an underflowed tail probability as "p<1e-300", NaN as "p n/a".
@@ -15,7 +16,10 @@ export function formatP(p: number, resolution = NaN, denominator = 0, strict = f
   if (Number.isNaN(p)) return 'p n/a';
   const frac = denominator > 0 ? ` (1/${denominator})` : '';
   if (resolution === resolution && p <= resolution * (1 + 1e-12)) {
-    return strict || p < resolution * (1 - 1e-12) ? `p<${formatNumber(resolution, digits)}${frac}` : `p<=${formatNumber(resolution, digits)}${frac}`;
+    // The bound is rounded up, so the text stays true ("p<=0.0100" for 1/101 = 0.0099..., not "0.0099").
+    const e = Math.floor(Math.log10(resolution)) - (digits - 1);
+    const up = Number((Math.ceil(resolution / Math.pow(10, e) - 1e-9) * Math.pow(10, e)).toPrecision(digits));
+    return strict || p < resolution * (1 - 1e-12) ? `p<${formatNumber(up, digits)}${frac}` : `p<=${formatNumber(up, digits)}${frac}`;
   }
   if (p <= 0) return 'p<1e-300';
   return `p=${formatNumber(p, digits)}`;

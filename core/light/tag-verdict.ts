@@ -57,7 +57,7 @@ export function tagVerdict(r: LightResponse, waveformR: number, flags: readonly 
   const atRes = saltP <= res * (1 + 1e-12);
   const pText = Number.isNaN(saltP)
     ? 'SALT not run'
-    : `${formatP(saltP, res, 0, choice.kind === 'published')} (${choice.kind} SALT${atRes ? `; resolution 1/${choice.kind === 'calibrated' ? r.salt.rows : r.salt.nullCount}` : ''})`;
+    : `${formatP(saltP, res, 0, choice.kind === 'published', 3)} (${choice.kind} SALT${atRes ? `; resolution 1/${choice.kind === 'calibrated' ? r.salt.rows : r.salt.nullCount}` : ''})`;
   const why = choice.note && !Number.isNaN(saltP) ? `; ${choice.note}` : '';
   const facts = `${pText}, latency ${f(r.meanLatencyS * 1000)} ms, jitter ${f(r.jitterS * 1000)} ms, reliability ${f(r.reliability)}${why}`;
   const excess = r.reliability - r.baselineReliability;

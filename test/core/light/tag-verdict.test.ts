@@ -55,7 +55,7 @@ describe('tagVerdict', () => {
     expect(r.saltWindows).toBe(100);
     expect(r.salt.pCalibrated).toBe(1 / 101);
     expect(v.tag).toBe('tagged');
-    expect(v.reason).toMatch(/^p<=0\.0099 \(calibrated SALT; resolution 1\/101\), latency 3(\.\d+)? ms, jitter 0\.\d+ ms, reliability 0\.\d+$/);
+    expect(v.reason).toMatch(/^p<=0\.00991 \(calibrated SALT; resolution 1\/101\), latency 3(\.\d+)? ms, jitter 0\.\d+ ms, reliability 0\.\d+$/);
   });
   it('no pulses: untagged, "no laser pulses"', () => {
     const { v } = judge(renewalTrain(new Rng(2), 5, 0, 100), {}, NaN, emptyPulses(), 100);
