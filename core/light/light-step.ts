@@ -185,7 +185,7 @@ export const lightStep: AnalysisStep = {
     if (sch.n > 0 && !sch.saltProblem && sch.saltPulses.length < sch.n) {
       warnings.push({
         code: 'salt-pulses-left-out',
-        message: `${sch.n - sch.saltPulses.length} of ${sch.n} pulses had less than ${sch.windows} light-free baseline windows before them and were left out of SALT (kept for latency, reliability and following).`,
+        message: `${sch.n - sch.saltPulses.length} of ${sch.n} pulses did not get a block of ${sch.windows} light-free baseline windows of their own (later pulses of trains, or pulses too close together) and were left out of SALT (kept for latency, reliability and following).`,
         count: sch.n - sch.saltPulses.length,
       });
     }

@@ -32,7 +32,9 @@ export interface TagVerdict {
  *
  * `borderline`: significant and excitatory but failing any criterion above
  * (late / indirect, unreliable, poor waveform match, artefact suspect); or SALT
- * cannot run and the count test finds an excitatory answer.
+ * cannot run, or its chosen p cannot reach alphaSalt on this schedule
+ * (light.saltP = 'calibrated' with 1 / (J + 1) >= alphaSalt), and the count
+ * test finds an excitatory answer.
  *
  * `untagged`: everything else, including light-inhibited units (SALT
  * significant with fewer answers than baseline) and sessions without pulses
@@ -66,6 +68,11 @@ export function tagVerdict(r: LightResponse, waveformR: number, flags: readonly 
     const notRun = saltProblem || 'SALT not run';
     if (excitatory && r.countP < p.alphaCount) return { tag: 'borderline', reason: `${notRun}; count test ${formatP(r.countP)}; ${facts}` };
     return { tag: 'untagged', reason: `${notRun}; ${facts}` };
+  }
+  if (!choice.canPass) {
+    // The chosen p cannot reach alphaSalt on this schedule: as when SALT cannot run.
+    if (excitatory && r.countP < p.alphaCount) return { tag: 'borderline', reason: `SALT cannot decide; count test ${formatP(r.countP)}; ${facts}` };
+    return { tag: 'untagged', reason: `SALT cannot decide; ${facts}` };
   }
   const sig = saltP < p.alphaSalt;
   if (sig && !excitatory) {
