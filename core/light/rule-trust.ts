@@ -36,8 +36,9 @@ const REFRACTORY_S = TRUST_REFRACTORY_S;
 
 /**
  * Spikes of a stationary gamma renewal process (dead time + gamma) on the merged
- * intervals laid end to end, written into buf from index `from`; also counts the
- * intervals that got at least one spike. Starts 10 mean ISIs early (stationary).
+ * intervals laid end to end, written into buf; also counts the intervals that
+ * got at least one spike, and stops (incomplete) once that count exceeds
+ * stopAtHits. Starts 10 mean ISIs early (stationary).
  */
 function simulateOn(
   rng: Rng,
@@ -46,6 +47,7 @@ function simulateOn(
   intervals: Float64Array,
   totalS: number,
   buf: Float64Array<ArrayBuffer>,
+  stopAtHits = Infinity,
 ): { buf: Float64Array<ArrayBuffer>; n: number; hit: number } {
   if (!(rateHz > 0) || intervals.length === 0) return { buf, n: 0, hit: 0 };
   const theta = (1 / rateHz - REFRACTORY_S) / shape;
@@ -64,7 +66,7 @@ function simulateOn(
       k += 2;
     }
     if (k !== lastK) {
-      hit++;
+      if (++hit > stopAtHits) break;
       lastK = k;
     }
     if (n === buf.length) {
@@ -189,10 +191,13 @@ export function ruleTrust(
       screenedOut++;
       continue;
     }
-    const b = simulateOn(rng, rateHz, shape, iv.base, baseS, baseBuf);
+    // Screen 2: excess reliability over the baseline windows (one interval per window); the
+    // baseline stops as soon as its windows with a spike make the excess too small.
+    const screen = !power && iv.testDisjoint;
+    const limit = screen ? Math.floor((t.hit / n - screenAt) * J * m) : Infinity;
+    const b = simulateOn(rng, rateHz, shape, iv.base, baseS, baseBuf, limit);
     baseBuf = b.buf;
-    // Screen 2: excess reliability over the baseline windows (one interval per window).
-    if (!power && iv.testDisjoint && t.hit / n - b.hit / (J * m) < screenAt) {
+    if (screen && t.hit / n - b.hit / (J * m) < screenAt) {
       screenedOut++;
       continue;
     }
