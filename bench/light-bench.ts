@@ -72,7 +72,7 @@ const iv = simulationIntervals(sch, p.light.offsetWindowMs / 1000);
 for (const [rate, cv] of [[1, 1], [4, 0.5], [16, 2]] as const) {
   t0 = mark();
   const t = ruleTrust(sch, iv, rate, cv, p.light);
-  console.log(`trust node ${t.rateHz} Hz, CV ${t.cv}: ${ms(t0)} (${t.nullSimulations} null (${t.screenedOut} stopped at the test-window screen) + power search; false rate ${t.falseRate}, min detectable reliability ${t.minDetectableReliability})`);
+  console.log(`trust node ${t.rateHz} Hz, CV ${t.cv}: ${ms(t0)} (${t.nullSimulations} null (${t.screenedOut} stopped at the excess-reliability screens) + power search; false rate ${t.falseRate}, min detectable reliability ${t.minDetectableReliability})`);
 }
 
 if (full) {
