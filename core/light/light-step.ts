@@ -197,8 +197,10 @@ export const lightStep: AnalysisStep = {
         count: sch.n - sch.saltPulses.length,
       });
     }
-    if (sch.n > 0 && !sch.saltProblem && choice.note) {
-      warnings.push({ code: choice.canPass ? 'salt-p-published' : 'salt-p-resolution', message: `${choice.note}${choice.canPass ? '' : ': no unit can be "tagged" by SALT; give more light-free time between pulses (or fewer, sparser trains), or set light.saltP to "published" or "auto"'}.`, count: 1 });
+    // Only a p that can never pass is a warning; the automatic choice of the published p is
+    // stated in every reason and in the summary (salt.pUsed, salt.pNote).
+    if (sch.n > 0 && !sch.saltProblem && !choice.canPass) {
+      warnings.push({ code: 'salt-p-resolution', message: `${choice.note}: no unit can be "tagged" by SALT; give more light-free time between pulses (or fewer, sparser trains), or set light.saltP to "published" or "auto".`, count: 1 });
     }
     if (badChannels) warnings.push({ code: 'waveform-channel-invalid', message: `Unit channel metadata not a channel of the raw file (${recording.raw?.channelIds ? 'not in raw.channel_map' : 'read as a 0-based column; give raw.channel_map in session.json when the file holds other channels'}); the largest-amplitude channel was used instead.`, count: badChannels });
     if (waveformProblems) warnings.push({ code: 'waveform-match-missing', message: 'Some units had too few evoked or spontaneous spikes (or a flat waveform) for a waveform match; their tag_waveform_r is empty.', count: waveformProblems });

@@ -59,7 +59,10 @@ describe('lightStep', () => {
     // 1/59 > 0.01: the calibrated p cannot pass alphaSalt, so 'auto' uses the published p and says why.
     expect(s.salt.pUsed).toBe('published');
     expect(s.salt.pNote).toMatch(/too few light-free baseline windows for a calibrated p < 0\.01 \(J = 58/);
-    expect(res.warnings.map((w) => w.code)).toContain('salt-p-published');
+    expect(res.warnings.map((w) => w.code)).not.toContain('salt-p-resolution');
+    const forced = analyseRecording(recording(units, pulses), { ...params(), light: { ...params().light, saltP: 'calibrated' } }, [basicStep, lightStep]);
+    expect(forced.warnings.find((w) => w.code === 'salt-p-resolution')?.message).toMatch(/^too few light-free baseline windows for p < 0\.01: J = 58 \(calibrated p >= 1\/59 = 0\.0169\): no unit can be "tagged" by SALT/);
+    expect(col(forced.table.columns, 'tag')).not.toContain('tagged');
     // tag_p is the published p here, never 0 (a 0 is written as 1/#null).
     const tp = col(res.table.columns, 'tag_p') as Float64Array;
     const pub = col(res.table.columns, 'tag_salt_p_published') as Float64Array;
