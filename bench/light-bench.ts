@@ -7,8 +7,8 @@
  * Spikes: gamma renewal trains (core/sim/renewal-train.ts), rates log-uniform 0.5-20 Hz;
  * pulses: the simulator's benchmark light block (2,000 single pulses, 400 trains of 10 at
  * 10 Hz and 400 at 20 Hz). Timed: the schedule, the per-unit engine (first-spike scan,
- * SALT, count test; detail off and on), the trust simulation of a few typical cells, and
- * with --full the whole light step (including every trust cell).
+ * SALT, count test; detail off and on), the trust simulation of three grid nodes, and
+ * with --full the whole light step (including every trust node). Wall and CPU time.
  */
 import { DEFAULTS, type Parameters } from '../core/defaults';
 import { createLightScratch, lightResponse } from '../core/light/light-response';
