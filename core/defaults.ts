@@ -73,13 +73,13 @@ export const DEFAULTS = {
     waveformMaxSpikes: 500,
     /** Fewest evoked or spontaneous spikes for a waveform correlation. */
     waveformMinSpikes: 10,
-    /** Null units simulated per (rate, ISI CV) cell for the false-identification estimate. */
+    /** Null units simulated per node of the trust grid (rate 2^k Hz x ISI CV 0.5/1/2) for the false-identification estimate. */
     trustNullSimulations: 200,
     /** Simulated responders per reliability step of the power search. */
     trustPowerSimulations: 40,
     /**
-     * Budget of the trust simulation per session, in pulse evaluations: when cells x pulses
-     * x trustNullSimulations exceeds it, each cell gets fewer null units (at least 50) and
+     * Budget of the trust simulation per session, in pulse evaluations: when nodes x pulses
+     * x trustNullSimulations exceeds it, each node gets fewer null units (at least 50) and
      * fewer responders per power step (at least 10, a fifth of the null units), so a
      * 1,000-unit, 10,000-pulse session stays within seconds. run.json reports the counts used.
      */
