@@ -22,19 +22,27 @@ export const DEFAULTS = {
     saltBinMs: 1,
     /** SALT p threshold of the identified rule. */
     alphaSalt: 0.01,
+    /**
+     * Which SALT p the rule and `tag_p` use: 'calibrated' (rank of the test histogram among all
+     * J + 1 histograms: close to uniform under no light effect, but never below 1 / (J + 1)),
+     * 'published' (the authors' p, conservative), or 'auto' (own choice, the default):
+     * calibrated when 1 / (J + 1) < alphaSalt on this session's schedule, else published.
+     */
+    saltP: 'auto' as 'auto' | 'calibrated' | 'published',
     /** Mean first-spike latency limit of the identified rule, ms. */
     maxLatencyMs: 6,
     /** Waveform correlation needed when waveforms exist (common practice). */
     minWaveformR: 0.9,
     /**
-     * Light-free time before each pulse cut into SALT baseline windows, ms
-     * (50 windows of 10 ms: 1,225 null distances, p resolution 0.0008).
-     * Common practice: a few hundred ms before the pulse.
+     * Most light-free time before each pulse cut into SALT baseline windows, ms
+     * (100 windows of 10 ms: 4,950 null distances; the calibrated p can reach
+     * 1/101 < 0.01 where the schedule leaves that much light-free time per pulse).
+     * Common practice: a few hundred ms to a second before the pulse.
      */
-    saltBaselineMs: 500,
+    saltBaselineMs: 1000,
     /** Fewest baseline windows SALT runs with (REFERENCES.md: p < 0.01 needs >= ~15 windows). */
     saltMinWindows: 15,
-    /** Share of pulses that must keep the full baseline before fewer windows are used (own choice). */
+    /** Share of pulses that should get a baseline block of their own before fewer windows are used (down to saltMinWindows; own choice). */
     saltMinPulseFraction: 0.8,
     /**
      * Time after each pulse's end (or after its test window, whichever is later)
@@ -65,13 +73,13 @@ export const DEFAULTS = {
     waveformMaxSpikes: 500,
     /** Fewest evoked or spontaneous spikes for a waveform correlation. */
     waveformMinSpikes: 10,
-    /** Null units simulated per (rate, ISI CV) cell for the false-identification estimate. */
+    /** Null units simulated per node of the trust grid (rate 2^k Hz x ISI CV 0.5/1/2) for the false-identification estimate. */
     trustNullSimulations: 200,
     /** Simulated responders per reliability step of the power search. */
     trustPowerSimulations: 40,
     /**
-     * Budget of the trust simulation per session, in pulse evaluations: when cells x pulses
-     * x trustNullSimulations exceeds it, each cell gets fewer null units (at least 50) and
+     * Budget of the trust simulation per session, in pulse evaluations: when nodes x pulses
+     * x trustNullSimulations exceeds it, each node gets fewer null units (at least 50) and
      * fewer responders per power step (at least 10, a fifth of the null units), so a
      * 1,000-unit, 10,000-pulse session stays within seconds. run.json reports the counts used.
      */

@@ -1,6 +1,8 @@
 import type { Parameters } from '../defaults';
 import { formatNumber } from '../table/format-number';
 import type { LightResponse } from './light-response';
+import { ruleSaltP } from './rule-salt-p';
+import { saltPChoice } from './salt-p-choice';
 
 /**
  * Share of the excess spikes in one artefactJitterMs-wide slot from which an answer counts
@@ -34,13 +36,13 @@ export interface ArtefactFlag {
  *   alphaCount, excess >= 10) and >= OFFSET_LOCKED_SHARE of it sits in one
  *   artefactJitterMs slot;
  * - waveform-mismatch: evoked vs spontaneous mean waveform r < minWaveformR.
- * The test-window flags need an answer there at all (SALT p < alphaSalt or
+ * The test-window flags need an answer there at all (the rule's SALT p < alphaSalt or
  * count p < alphaCount); the offset flag carries its own count test.
  * Common-practice thresholds.
  */
 export function artefactFlags(r: LightResponse, waveformR: number, p: Parameters['light']): ArtefactFlag[] {
   const flags: ArtefactFlag[] = [];
-  const responding = r.salt.p < p.alphaSalt || r.countP < p.alphaCount;
+  const responding = ruleSaltP(r, saltPChoice(r.saltWindows, p).kind) < p.alphaSalt || r.countP < p.alphaCount;
   const ms = (s: number) => formatNumber(s * 1000, 2);
   const slot = formatNumber(p.artefactJitterMs, 2);
   const excessSpikes = r.lockedShare === r.lockedShare ? r.evokedPerPulse * r.pulses - r.baselineHz * r.pulses * r.windowS : 0;

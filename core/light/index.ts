@@ -13,3 +13,6 @@ export { ruleTrust, POWER_GRID, type RuleTrust } from './rule-trust';
 export { trustCell } from './trust-cell';
 export { selectKth } from './select-kth';
 export { lightStep } from './light-step';
+export { saltPChoice, type SaltPChoice } from './salt-p-choice';
+export { ruleSaltP } from './rule-salt-p';
+export { formatP } from './format-p';

@@ -1,5 +1,6 @@
 import { lowerBound } from '../align/lower-bound';
 import { gallopBound } from './gallop-bound';
+import { selectKth } from './select-kth';
 import { poissonSf } from '../stats/distributions/poisson';
 import type { Parameters } from '../defaults';
 import type { LightSchedule } from './light-schedule';
@@ -59,6 +60,8 @@ export interface LightResponse {
 /** Reusable buffers of lightResponse (one per thread of work; grow on demand). */
 export interface LightScratch {
   rel: Float64Array;
+  /** Latencies for the median (selection reorders it). */
+  med: Float64Array;
   counts: Int32Array;
   fine: Int32Array;
   salt: SaltScratch;
@@ -66,7 +69,7 @@ export interface LightScratch {
 
 /** Empty scratch space for lightResponse. */
 export function createLightScratch(): LightScratch {
-  return { rel: new Float64Array(0), counts: new Int32Array(0), fine: new Int32Array(0), salt: createSaltScratch() };
+  return { rel: new Float64Array(0), med: new Float64Array(0), counts: new Int32Array(0), fine: new Int32Array(0), salt: createSaltScratch() };
 }
 
 /**
@@ -191,7 +194,7 @@ export function lightResponse(
   const J = sch.windows;
   const classes = nBins + 1;
   const m = sch.saltPulses.length;
-  let salt: SaltResult = { p: NaN, informationDifference: NaN, testDistance: NaN, nullMedian: NaN, nullCount: 0 };
+  let salt: SaltResult = { p: NaN, pCalibrated: NaN, informationDifference: NaN, testDistance: NaN, nullMedian: NaN, nullCount: 0, rows: 0 };
   let baselineHz = NaN;
   let baselineSource: LightResponse['baselineSource'] = 'none';
   let baselineReliability = NaN;
@@ -305,9 +308,15 @@ export function lightResponse(
   let frequencyLatencyS: Float64Array | undefined;
   if (detail) {
     latencyS = new Float64Array(n);
-    for (let i = 0; i < n; i++) latencyS[i] = rel[i] + ws;
-    const got = latencyS.filter((x) => x === x).sort();
-    if (got.length) medianLatencyS = got.length % 2 ? got[(got.length - 1) / 2] : (got[got.length / 2 - 1] + got[got.length / 2]) / 2;
+    if (scratch.med.length < n) scratch.med = new Float64Array(n);
+    const med = scratch.med;
+    let got = 0;
+    for (let i = 0; i < n; i++) {
+      const l = rel[i] + ws;
+      latencyS[i] = l;
+      if (l === l) med[got++] = l;
+    }
+    if (got) medianLatencyS = got % 2 ? selectKth(med, got, (got - 1) / 2) : medianOfEven(med, got);
     const nf = sch.frequencyKeys.length;
     frequencyPulses = new Float64Array(nf);
     const fAns = new Float64Array(nf);
@@ -360,4 +369,12 @@ export function lightResponse(
     frequencyLatencyS,
     latencyS,
   };
+}
+
+/** Median of x[0..n) for even n > 0 by selection (x is reordered). */
+function medianOfEven(x: Float64Array, n: number): number {
+  const hi = selectKth(x, n, n / 2);
+  let lo = -Infinity;
+  for (let i = 0; i < n / 2; i++) if (x[i] > lo) lo = x[i];
+  return (lo + hi) / 2;
 }

@@ -4,6 +4,12 @@ import { selectKth } from './select-kth';
 export interface SaltResult {
   /** p = #(null >= test) / #null (no +1, as published); NaN when SALT cannot run. */
   readonly p: number;
+  /**
+   * Rank-calibrated p from the same distance matrix: every one of the J + 1
+   * histograms gets the median of its distances to the other J; pCalibrated =
+   * #(rows whose median >= the test row's) / (J + 1), >= 1 / (J + 1). NaN when SALT cannot run.
+   */
+  readonly pCalibrated: number;
   /** Information difference I = median(test-baseline distances) - median(null). */
   readonly informationDifference: number;
   /** Median distance between the test histogram and the baseline histograms. */
@@ -12,6 +18,8 @@ export interface SaltResult {
   readonly nullMedian: number;
   /** Number of null distances, J (J - 1) / 2. */
   readonly nullCount: number;
+  /** Rows compared by pCalibrated, J + 1 (its resolution is 1 / rows). */
+  readonly rows: number;
 }
 
 /** Reusable buffers and log tables for saltTest (sizes grow on demand). */
@@ -21,11 +29,14 @@ export interface SaltScratch {
   rowX: Float64Array;
   nullD: Float64Array;
   testD: Float64Array;
+  /** Full (J + 1) x (J + 1) distance matrix and one row's copy for selection. */
+  matrix: Float64Array;
+  rowD: Float64Array;
 }
 
 /** Empty scratch space for saltTest. */
 export function createSaltScratch(): SaltScratch {
-  return { lnInt: new Float64Array(0), xlnx: new Float64Array(0), rowX: new Float64Array(0), nullD: new Float64Array(0), testD: new Float64Array(0) };
+  return { lnInt: new Float64Array(0), xlnx: new Float64Array(0), rowX: new Float64Array(0), nullD: new Float64Array(0), testD: new Float64Array(0), matrix: new Float64Array(0), rowD: new Float64Array(0) };
 }
 
 /**
@@ -46,7 +57,7 @@ export function createSaltScratch(): SaltScratch {
  */
 export function saltTest(counts: Int32Array, rows: number, classes: number, n: number, s: SaltScratch = createSaltScratch()): SaltResult {
   const J = rows - 1;
-  if (J < 2 || n <= 0) return { p: NaN, informationDifference: NaN, testDistance: NaN, nullMedian: NaN, nullCount: 0 };
+  if (J < 2 || n <= 0) return { p: NaN, pCalibrated: NaN, informationDifference: NaN, testDistance: NaN, nullMedian: NaN, nullCount: 0, rows: 0 };
   if (s.lnInt.length < 2 * n + 1) {
     s.lnInt = new Float64Array(2 * n + 1);
     s.xlnx = new Float64Array(n + 1);
@@ -95,9 +106,22 @@ export function saltTest(counts: Int32Array, rows: number, classes: number, n: n
     const d2 = klA + klB;
     return d2 > 0 ? Math.sqrt(d2) : 0;
   };
+  // Every pair once (the matrix is symmetric; equal pairs give bit-equal values).
+  const R = rows;
+  if (s.matrix.length < R * R) s.matrix = new Float64Array(R * R);
+  if (s.rowD.length < R) s.rowD = new Float64Array(R);
+  const M = s.matrix;
   let k = 0;
-  for (let a = 1; a <= J; a++) for (let b = a + 1; b <= J; b++) s.nullD[k++] = dist(a, b);
-  for (let a = 1; a <= J; a++) s.testD[a - 1] = dist(0, a);
+  for (let a = 0; a < R; a++) {
+    M[a * R + a] = 0;
+    for (let b = a + 1; b < R; b++) {
+      const d = dist(a, b);
+      M[a * R + b] = d;
+      M[b * R + a] = d;
+      if (a === 0) s.testD[b - 1] = d;
+      else s.nullD[k++] = d;
+    }
+  }
   // #(null >= test) by one pass; medians by selection (no full sort).
   const median = (x: Float64Array, len: number) => {
     if (len % 2) return selectKth(x, len, (len - 1) / 2);
@@ -110,5 +134,13 @@ export function saltTest(counts: Int32Array, rows: number, classes: number, n: n
   let atLeast = 0;
   for (let i = 0; i < nullCount; i++) if (s.nullD[i] >= testDistance) atLeast++;
   const nullMedian = median(s.nullD, nullCount);
-  return { p: atLeast / nullCount, informationDifference: testDistance - nullMedian, testDistance, nullMedian, nullCount };
+  // Rank calibration: the row medians of the full matrix (row 0's is testDistance).
+  const rowD = s.rowD;
+  let notBelow = 1;
+  for (let a = 1; a < R; a++) {
+    let m = 0;
+    for (let b = 0; b < R; b++) if (b !== a) rowD[m++] = M[a * R + b];
+    if (median(rowD, J) >= testDistance) notBelow++;
+  }
+  return { p: atLeast / nullCount, pCalibrated: notBelow / R, informationDifference: testDistance - nullMedian, testDistance, nullMedian, nullCount, rows: R };
 }

@@ -1,27 +1,55 @@
 import type { LightSchedule } from './light-schedule';
 
 /**
- * The stretches of time a light analysis of this schedule looks at: for each
- * pulse, from its earliest SALT baseline window (or its test window when SALT
- * cannot run) to the later of its test-window end and its offset window end;
- * merged and sorted as [a0, b0, a1, b1, ...], s. The trust simulation
- * simulates spikes only there (spikes elsewhere cannot change any result).
+ * The stretches of time a light analysis of this schedule looks at, in two
+ * parts, each merged and sorted as [a0, b0, a1, b1, ...], s:
+ * - `test`: every pulse's test window [onset + windowStart, onset + windowEnd);
+ *   `testDisjoint` is true when no two of them touch (then `test` holds exactly
+ *   one interval per pulse, in pulse order);
+ * - `base`: every SALT baseline window of every SALT pulse (J per pulse, the
+ *   block [anchor - J w, anchor) cut into its windows), one interval each,
+ *   sorted (the blocks are disjoint, so they never overlap; neighbours touch);
+ * - `offset`: the offset window [offset, offset + offsetWindowS) of every pulse
+ *   ending at or after its test window (the only offset windows lightResponse
+ *   reads), merged.
+ * The trust simulation simulates spikes only there (spikes elsewhere cannot
+ * change any result, as long as SALT can run; without SALT the baseline rate
+ * comes from all light-free time and the rule cannot call `tagged` anyway).
  */
-export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): Float64Array {
+export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): { test: Float64Array; testDisjoint: boolean; base: Float64Array; offset: Float64Array } {
+  const test: number[] = [];
+  let disjoint = true;
+  for (let i = 0; i < sch.n; i++) {
+    const a = sch.onset[i] + sch.windowStartS;
+    const b = sch.onset[i] + sch.windowEndS;
+    if (test.length && a <= test[test.length - 1]) {
+      disjoint = false;
+      test[test.length - 1] = Math.max(test[test.length - 1], b);
+    } else test.push(a, b);
+  }
+  const J = sch.windows;
+  const w = sch.windowS;
+  const blocks = Array.from(sch.saltPulses).sort((a, b) => sch.anchor[a] - sch.anchor[b]);
+  const base = new Float64Array(J > 0 ? 2 * J * blocks.length : 0);
+  let k = 0;
+  for (const i of blocks) {
+    const start = sch.anchor[i] - J * w;
+    for (let j = 0; j < J; j++) {
+      // Same window edges as lightResponse: start + j w (the last one ends at the anchor).
+      base[k++] = start + j * w;
+      base[k++] = j === J - 1 ? sch.anchor[i] : start + (j + 1) * w;
+    }
+  }
   const iv: [number, number][] = [];
   for (let i = 0; i < sch.n; i++) {
-    const o = sch.onset[i];
-    let a = o + Math.min(0, sch.windowStartS);
-    if (sch.windows > 0) a = Math.min(a, sch.anchor[i] - sch.windows * sch.windowS);
-    let b = o + sch.windowEndS;
-    if (Number.isFinite(sch.offset[i])) b = Math.max(b, sch.offset[i] + offsetWindowS);
-    iv.push([a, b]);
+    const o = sch.offset[i];
+    if (Number.isFinite(o) && o >= sch.onset[i] + sch.windowEndS) iv.push([o, o + offsetWindowS]);
   }
   iv.sort((x, y) => x[0] - y[0] || x[1] - y[1]);
-  const out: number[] = [];
+  const offset: number[] = [];
   for (const [a, b] of iv) {
-    if (out.length && a <= out[out.length - 1]) out[out.length - 1] = Math.max(out[out.length - 1], b);
-    else out.push(a, b);
+    if (offset.length && a <= offset[offset.length - 1]) offset[offset.length - 1] = Math.max(offset[offset.length - 1], b);
+    else offset.push(a, b);
   }
-  return Float64Array.from(out);
+  return { test: Float64Array.from(test), testDisjoint: disjoint, base, offset: Float64Array.from(offset) };
 }

@@ -1,7 +1,10 @@
 import type { Parameters } from '../defaults';
 import { formatNumber } from '../table/format-number';
 import type { ArtefactFlag } from './artefact-flags';
+import { formatP } from './format-p';
 import type { LightResponse } from './light-response';
+import { ruleSaltP } from './rule-salt-p';
+import { saltPChoice } from './salt-p-choice';
 
 /** Verdict word of the contract (DESIGN.md section 3) and its reason. */
 export interface TagVerdict {
@@ -29,32 +32,49 @@ export interface TagVerdict {
  *
  * `borderline`: significant and excitatory but failing any criterion above
  * (late / indirect, unreliable, poor waveform match, artefact suspect); or SALT
- * cannot run and the count test finds an excitatory answer.
+ * cannot run, or its chosen p cannot reach alphaSalt on this schedule
+ * (light.saltP = 'calibrated' with 1 / (J + 1) >= alphaSalt), and the count
+ * test finds an excitatory answer.
  *
  * `untagged`: everything else, including light-inhibited units (SALT
  * significant with fewer answers than baseline) and sessions without pulses
  * ("no laser pulses").
  *
- * Reason: "p=0.0004, latency 3.1 ms, jitter 0.6 ms, reliability 0.62", led
- * by what failed. p = 0 is written "p<1/#null" (the test's resolution).
+ * SALT p: the one saltPChoice picks for the schedule (light.saltP; 'auto':
+ * the rank-calibrated p when 1 / (J + 1) < alphaSalt, else the published p);
+ * the reason names it and, when the choice needs explaining (too few
+ * baseline windows), says why.
+ *
+ * Reason: "p=0.0004 (published SALT), latency 3.1 ms, jitter 0.6 ms,
+ * reliability 0.62", led by what failed. A p at the test's resolution is
+ * written with it, never as 0: "p<=0.0099 (calibrated SALT; resolution
+ * 1/101)", "p<0.0002 (published SALT; resolution 1/4950)".
  */
 export function tagVerdict(r: LightResponse, waveformR: number, flags: readonly ArtefactFlag[], p: Parameters['light'], saltProblem = ''): TagVerdict {
   if (r.pulses === 0) return { tag: 'untagged', reason: 'no laser pulses' };
   const f = (x: number, d = 2) => (Number.isNaN(x) ? 'n/a' : formatNumber(x, d));
-  const pText = Number.isNaN(r.salt.p)
+  const choice = saltPChoice(r.saltWindows, p);
+  const saltP = ruleSaltP(r, choice.kind);
+  const res = choice.kind === 'calibrated' ? 1 / r.salt.rows : 1 / r.salt.nullCount;
+  const atRes = saltP <= res * (1 + 1e-12);
+  const pText = Number.isNaN(saltP)
     ? 'SALT not run'
-    : r.salt.p === 0
-      ? `p<${formatNumber(1 / r.salt.nullCount, 2)}`
-      : `p=${formatNumber(r.salt.p, 2)}`;
-  const facts = `${pText}, latency ${f(r.meanLatencyS * 1000)} ms, jitter ${f(r.jitterS * 1000)} ms, reliability ${f(r.reliability)}`;
+    : `${formatP(saltP, res, 0, choice.kind === 'published', 3)} (${choice.kind} SALT${atRes ? `; resolution 1/${choice.kind === 'calibrated' ? r.salt.rows : r.salt.nullCount}` : ''})`;
+  const why = choice.note && !Number.isNaN(saltP) ? `; ${choice.note}` : '';
+  const facts = `${pText}, latency ${f(r.meanLatencyS * 1000)} ms, jitter ${f(r.jitterS * 1000)} ms, reliability ${f(r.reliability)}${why}`;
   const excess = r.reliability - r.baselineReliability;
   const excitatory = Number.isNaN(r.baselineReliability) ? r.countP < p.alphaCount : excess > 0;
-  if (Number.isNaN(r.salt.p)) {
-    const why = saltProblem || 'SALT not run';
-    if (excitatory && r.countP < p.alphaCount) return { tag: 'borderline', reason: `${why}; count test p=${f(r.countP)}; ${facts}` };
-    return { tag: 'untagged', reason: `${why}; ${facts}` };
+  if (Number.isNaN(saltP)) {
+    const notRun = saltProblem || 'SALT not run';
+    if (excitatory && r.countP < p.alphaCount) return { tag: 'borderline', reason: `${notRun}; count test ${formatP(r.countP)}; ${facts}` };
+    return { tag: 'untagged', reason: `${notRun}; ${facts}` };
   }
-  const sig = r.salt.p < p.alphaSalt;
+  if (!choice.canPass) {
+    // The chosen p cannot reach alphaSalt on this schedule: as when SALT cannot run.
+    if (excitatory && r.countP < p.alphaCount) return { tag: 'borderline', reason: `SALT cannot decide; count test ${formatP(r.countP)}; ${facts}` };
+    return { tag: 'untagged', reason: `SALT cannot decide; ${facts}` };
+  }
+  const sig = saltP < p.alphaSalt;
   if (sig && !excitatory) {
     return { tag: 'untagged', reason: `light-inhibited (reliability ${f(r.reliability)} vs baseline ${f(r.baselineReliability)}); ${facts}` };
   }
@@ -73,7 +93,7 @@ export function tagVerdict(r: LightResponse, waveformR: number, flags: readonly 
     for (const fl of flags) if (fl.code !== 'waveform-mismatch') fails.push(`artefact suspect: ${fl.text}`);
     if (waveformR < p.minWaveformR) fails.push(`waveform match r=${f(waveformR)} < ${p.minWaveformR}`);
     const blind = saltBlind
-      ? `SALT blind to this answer (test distance ${f(r.salt.testDistance, 3)} <= null median: support restriction), count test p=${f(r.countP)} used instead; `
+      ? `SALT blind to this answer (test distance ${f(r.salt.testDistance, 3)} <= null median: support restriction), count test ${formatP(r.countP)} used instead; `
       : '';
     if (fails.length === 0) return { tag: 'tagged', reason: `${blind}${facts}` };
     return { tag: 'borderline', reason: `${fails.join('; ')}; ${blind}${facts}` };

@@ -10,22 +10,42 @@
  * different construction, slowly drifting Poisson rate; Gaussian and exponential latency
  * spreads; added spikes and spikes replacing spontaneous ones; fading in trains) and two
  * pulse schedules, so the rule is not tuned to one simulator. Seeded: results are fixed.
+ * Run once per SALT p: dense schedules (J < 100: 'auto' takes the published p), sparse ones
+ * (J = 100: 'auto' takes the rank-calibrated p), and the published p forced on the sparse ones.
  */
 import { describe, expect, it } from 'vitest';
 import { artefactFlags } from '../../../core/light/artefact-flags';
 import { createLightScratch, lightResponse } from '../../../core/light/light-response';
 import { lightSchedule } from '../../../core/light/light-schedule';
+import { saltPChoice } from '../../../core/light/salt-p-choice';
 import { tagVerdict } from '../../../core/light/tag-verdict';
+import type { Parameters } from '../../../core/defaults';
 import type { Pulses } from '../../../core/model/types';
 import { Rng } from '../../../core/random/rng';
 import { burstyTrain, driftingTrain, lightParams, makePulses, mergeSorted, simulateUnit } from './helpers';
 
-const p = lightParams();
-const schedules = [
+// Dense schedules (~1 Hz singles and trains: J < 100, so 'auto' uses the published p) and
+// sparse ones (J = 100: 'auto' uses the calibrated p). Each SALT p is run on the schedules
+// where it is the one the rule would use, and the published p also on the sparse ones.
+const dense = [
   makePulses({ single: 300, jitterPeriodS: 0.4, trainFrequencies: [10, 20], trains: 10, seed: 1 }),
   makePulses({ single: 120, periodS: 2, durationS: 0.002, trainFrequencies: [5, 40], trains: 8, perTrain: 10, trainGapS: 4, seed: 2 }),
 ];
+const sparse = [
+  makePulses({ single: 200, periodS: 2, jitterPeriodS: 0.5, trainFrequencies: [20], trains: 8, perTrain: 5, trainGapS: 6, seed: 3 }),
+  makePulses({ single: 150, periodS: 1.5, jitterPeriodS: 1, durationS: 0.002, seed: 4 }),
+];
+const modes: [string, Partial<Parameters['light']>, typeof dense, 'calibrated' | 'published'][] = [
+  ['auto, dense schedules (published p)', {}, dense, 'published'],
+  ['auto, sparse schedules (calibrated p)', {}, sparse, 'calibrated'],
+  ['published p, sparse schedules', { saltP: 'published' }, sparse, 'published'],
+];
 
+describe.each(modes)('%s', (_, over, schedules, kind) => {
+const p = lightParams(over);
+it(`the rule uses the ${kind} p on these schedules`, () => {
+  for (const s of schedules) expect(saltPChoice(lightSchedule(s.pulses, [0, s.endS], p).windows, p).kind).toBe(kind);
+});
 function verdict(spikes: Float64Array, pulses: Pulses, endS: number, scratch = createLightScratch()) {
   const sch = lightSchedule(pulses, [0, endS], p);
   const r = lightResponse(spikes, sch, p, false, scratch);
@@ -95,4 +115,5 @@ describe('calibration: directly driven units with reliability >= 0.3', () => {
     }
     expect(missed.length / n, missed.join('\n')).toBeLessThanOrEqual(0.05);
   });
+});
 });

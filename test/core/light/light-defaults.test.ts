@@ -13,9 +13,10 @@ describe('DEFAULTS.light', () => {
       windowEndMs: 10,
       saltBinMs: 1,
       alphaSalt: 0.01,
+      saltP: 'auto',
       maxLatencyMs: 6,
       minWaveformR: 0.9,
-      saltBaselineMs: 500,
+      saltBaselineMs: 1000,
       saltMinWindows: 15,
       saltMinPulseFraction: 0.8,
       lightGuardMs: 100,
@@ -43,5 +44,7 @@ describe('DEFAULTS.light', () => {
     expect(1 / ((j * (j - 1)) / 2)).toBeLessThan(DEFAULTS.light.alphaSalt / 10);
     const m = DEFAULTS.light.saltMinWindows;
     expect(1 / ((m * (m - 1)) / 2)).toBeLessThan(DEFAULTS.light.alphaSalt);
+    // The calibrated p (>= 1 / (J + 1)) can pass alphaSalt with the full baseline: 1/101 < 0.01.
+    expect(1 / (j + 1)).toBeLessThan(DEFAULTS.light.alphaSalt);
   });
 });

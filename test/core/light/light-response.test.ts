@@ -12,7 +12,7 @@ import { Rng } from '../../../core/random/rng';
 import { lightParams, makePulses, simulateUnit } from './helpers';
 
 describe('lightResponse on a hand-made train', () => {
-  const p = lightParams();
+  const p = lightParams({ saltBaselineMs: 500 });
   const { pulses } = makePulses({ single: 4, periodS: 1, startS: 10 });
   const sch = lightSchedule(pulses, [0, 20], p);
   // pulse 0: spikes at +2 ms and +7 ms; pulse 1: +4 ms; pulse 2: none (+12 ms is outside);

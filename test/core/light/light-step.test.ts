@@ -43,7 +43,7 @@ describe('lightStep', () => {
     const res = analyseRecording(recording(units, pulses), params(), STEPS);
     const names = res.table.columns.map((c) => c.name);
     expect(names.slice(0, 8)).toEqual(['unit', 'n_spikes', 'rate_hz', 'tag', 'tag_latency_ms', 'tag_jitter_ms', 'tag_reliability', 'tag_p']);
-    for (const n of ['tag_reason', 'tag_salt_i', 'tag_count_p', 'tag_evoked_per_pulse', 'tag_baseline_hz', 'tag_waveform_r', 'tag_artefact', 'tag_false_rate', 'tag_min_detectable_reliability', 'tag_reliability_single', 'tag_latency_10hz_ms', 'tag_reliability_20hz']) {
+    for (const n of ['tag_reason', 'tag_salt_p_published', 'tag_salt_p_calibrated', 'tag_salt_i', 'tag_count_p', 'tag_evoked_per_pulse', 'tag_baseline_hz', 'tag_waveform_r', 'tag_artefact', 'tag_false_rate', 'tag_min_detectable_reliability', 'tag_reliability_single', 'tag_latency_10hz_ms', 'tag_reliability_20hz']) {
       expect(names).toContain(n);
     }
     expect(col(res.table.columns, 'tag')).toEqual(['tagged', 'untagged', 'borderline']);
@@ -52,9 +52,28 @@ describe('lightStep', () => {
     for (const x of fr) expect(x).toBeLessThanOrEqual(0.02);
     const md = col(res.table.columns, 'tag_min_detectable_reliability') as Float64Array;
     for (const x of md) expect(x).toBeLessThanOrEqual(0.3);
-    const s = res.summaries.light as { pulses: number; salt: { windows: number }; trust: { cells: unknown[]; expectedFalseTagged: number }; verdicts: Record<string, number> };
+    const s = res.summaries.light as { pulses: number; salt: { windows: number; pUsed: string; pNote: string }; trust: { cells: unknown[]; expectedFalseTagged: number }; verdicts: Record<string, number> };
     expect(s.pulses).toBe(320);
-    expect(s.salt.windows).toBe(50);
+    // ~1.15 s between single pulses, 3 s between trains: 80 % of the pulses get 58 windows of their own.
+    expect(s.salt.windows).toBe(58);
+    // 1/59 > 0.01: the calibrated p cannot pass alphaSalt, so 'auto' uses the published p and says why.
+    expect(s.salt.pUsed).toBe('published');
+    expect(s.salt.pNote).toMatch(/too few light-free baseline windows for a calibrated p < 0\.01 \(J = 58/);
+    expect(res.warnings.map((w) => w.code)).not.toContain('salt-p-resolution');
+    const forced = analyseRecording(recording(units, pulses), { ...params(), light: { ...params().light, saltP: 'calibrated' } }, [basicStep, lightStep]);
+    expect(forced.warnings.find((w) => w.code === 'salt-p-resolution')?.message).toMatch(/^too few light-free baseline windows for p < 0\.01: J = 58 \(calibrated p >= 1\/59 = 0\.0169\): no unit can be "tagged" by SALT/);
+    expect(col(forced.table.columns, 'tag')).not.toContain('tagged');
+    // tag_p is the published p here, never 0 (a 0 is written as 1/#null).
+    const tp = col(res.table.columns, 'tag_p') as Float64Array;
+    const pub = col(res.table.columns, 'tag_salt_p_published') as Float64Array;
+    const cal = col(res.table.columns, 'tag_salt_p_calibrated') as Float64Array;
+    for (let u = 0; u < 3; u++) {
+      expect(tp[u]).toBeGreaterThan(0);
+      expect(tp[u]).toBe(pub[u] === 0 ? 1 / ((58 * 57) / 2) : pub[u]);
+      expect(cal[u]).toBeGreaterThanOrEqual(1 / 59);
+    }
+    expect(pub[0]).toBe(0);
+    expect(cal[0]).toBe(1 / 59);
     expect(s.verdicts).toEqual({ tagged: 1, borderline: 1, untagged: 1 });
     expect(s.trust.cells.length).toBeGreaterThan(0);
   });

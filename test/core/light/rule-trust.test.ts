@@ -1,9 +1,10 @@
 /**
  * The trust simulation (false-identification rate and smallest detectable reliability of
- * the rule on a session's own pulses). Checks: grid rounding by hand; determinism; the
- * compressed-time null simulation agrees with an independent simulation of whole spike
- * trains (core/sim/renewal-train.ts over the full span) within binomial error (3 SE) under
- * a deliberately loose rule that makes false calls common; power grows with pulse count.
+ * the rule on a session's own pulses). Checks: grid nodes and weights by hand; determinism;
+ * the compressed-time null simulation (test windows, then baseline blocks and offset windows)
+ * agrees with an independent simulation of whole spike trains (core/sim/renewal-train.ts over
+ * the full span) within binomial error (3 SE) under a deliberately loose rule that makes false
+ * calls common; power grows with pulse count.
  */
 import { describe, expect, it } from 'vitest';
 import { artefactFlags } from '../../../core/light/artefact-flags';
@@ -17,13 +18,28 @@ import { Rng } from '../../../core/random/rng';
 import { renewalTrain } from '../../../core/sim/renewal-train';
 import { lightParams, makePulses } from './helpers';
 
-describe('trustCell', () => {
-  it('rounds rate to powers of sqrt 2 and CV to quarters', () => {
-    expect(trustCell(5, 0.8)).toEqual({ rateHz: Math.pow(2, 5 / 2), cv: 0.75 });
-    expect(trustCell(1, 1)).toEqual({ rateHz: 1, cv: 1 });
-    expect(trustCell(0, NaN)).toEqual({ rateHz: 0, cv: 1 });
-    expect(trustCell(NaN, 9)).toEqual({ rateHz: 0, cv: 3 });
-    expect(trustCell(1e6, 0.01)).toEqual({ rateHz: 400, cv: 0.25 });
+describe('trustCell (grid nodes and bilinear weights, worked by hand)', () => {
+  const w = (c: { rateHz: number; cv: number; weight: number }[]) => c.map((x) => [x.rateHz, x.cv, Number(x.weight.toFixed(12))]);
+  it('a unit on a node has that node alone', () => {
+    expect(w(trustCell(4, 1))).toEqual([[4, 1, 1]]);
+    expect(w(trustCell(0.125, 0.5))).toEqual([[0.125, 0.5, 1]]);
+  });
+  it('between nodes: weights in log2 rate and log2 CV', () => {
+    // rate 4 * sqrt 2: halfway between 4 and 8 in log2; CV 1.5: log2 1.5 = 0.585 of the way from 1 to 2
+    const f = Math.log2(1.5);
+    expect(w(trustCell(4 * Math.SQRT2, 1.5))).toEqual([
+      [4, 1, Number((0.5 * (1 - f)).toFixed(12))],
+      [4, 2, Number((0.5 * f).toFixed(12))],
+      [8, 1, Number((0.5 * (1 - f)).toFixed(12))],
+      [8, 2, Number((0.5 * f).toFixed(12))],
+    ]);
+    expect(trustCell(3, 0.7).reduce((a, c) => a + c.weight, 0)).toBeCloseTo(1, 12);
+  });
+  it('clamps outside the grid; silent or unknown units', () => {
+    expect(w(trustCell(0.01, 5))).toEqual([[0.125, 2, 1]]);
+    expect(w(trustCell(1e6, 0.1))).toEqual([[256, 0.5, 1]]);
+    expect(w(trustCell(0, NaN))).toEqual([[0, 1, 1]]);
+    expect(w(trustCell(NaN, 1))).toEqual([[0, 1, 1]]);
   });
 });
 
@@ -33,9 +49,11 @@ describe('ruleTrust', () => {
   const sch = lightSchedule(pulses, [0, endS], p);
   const iv = simulationIntervals(sch, p.offsetWindowMs / 1000);
   it('is deterministic and low for the default rule', () => {
-    const a = ruleTrust(sch, iv, 4, 1.1, p);
-    const b = ruleTrust(sch, iv, 4.1, 0.95, p, createLightScratch());
-    expect(JSON.stringify(b)).toBe(JSON.stringify(a)); // same cell, same numbers
+    const a = ruleTrust(sch, iv, 4, 1, p);
+    const b = ruleTrust(sch, iv, 4, 1, p, createLightScratch());
+    expect(JSON.stringify(b)).toBe(JSON.stringify(a)); // same node, same numbers
+    // 4 Hz: test-window reliability ~0.04 < 0.1, so every null unit past the power ones stops at the screen.
+    expect(a.screenedOut).toBe(100 - 20);
     expect(a.falseRate).toBeLessThanOrEqual(0.02);
     expect(a.nullSimulations).toBe(100);
     expect(POWER_GRID).toContain(a.minDetectableReliability);
@@ -70,7 +88,7 @@ describe('ruleTrust', () => {
   });
   it('a schedule without pulses gives NaN rates, a silent unit no false calls', () => {
     const none = lightSchedule({ onset: new Float64Array(0), duration: new Float64Array(0), train: new Int32Array(0), frequencyHz: new Float64Array(0), powerMw: new Float64Array(0) }, [0, 10], p);
-    expect(ruleTrust(none, new Float64Array(0), 5, 1, p).falseRate).toBeNaN();
+    expect(ruleTrust(none, simulationIntervals(none, 0.002), 5, 1, p).falseRate).toBeNaN();
     expect(ruleTrust(sch, iv, 0, NaN, p).falseTagged).toBe(0);
   });
 });

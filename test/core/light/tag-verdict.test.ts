@@ -37,7 +37,26 @@ describe('tagVerdict', () => {
   it('a clean direct answer is tagged with the reason format of the issue', () => {
     const { v } = judge(simulateUnit(new Rng(1), pulses, endS, 4, 1, { reliability: 0.6, latencyMs: 3, jitterMs: 0.6 }));
     expect(v.tag).toBe('tagged');
-    expect(v.reason).toMatch(/^p<0\.00082, latency 3\.\d+ ms, jitter 0\.\d+ ms, reliability 0\.\d+$/);
+    // ~1.15 s between single pulses: J = 90 windows, 4,005 null distances; the calibrated p
+    // cannot go below 1/91 > 0.01, so 'auto' uses the published p and the reason says why.
+    expect(v.reason).toMatch(
+      /^p<0\.00025 \(published SALT; resolution 1\/4005\), latency 3\.\d+ ms, jitter 0\.\d+ ms, reliability 0\.\d+; published SALT p used: too few light-free baseline windows for a calibrated p < 0\.01 \(J = 90, calibrated p >= 1\/91 = 0\.011\)$/,
+    );
+  });
+  it('light.saltP = calibrated on the same schedule: no unit can be tagged, and the reason says so', () => {
+    const { v, r } = judge(simulateUnit(new Rng(1), pulses, endS, 4, 1, { reliability: 0.6, latencyMs: 3, jitterMs: 0.6 }), { saltP: 'calibrated' });
+    expect(r.salt.pCalibrated).toBe(1 / 91);
+    // As when SALT cannot run: the count test's clear answer makes it borderline, never tagged.
+    expect(v.tag).toBe('borderline');
+    expect(v.reason).toMatch(/^SALT cannot decide; count test p=[0-9.e-]+; p<=0\.011 \(calibrated SALT; resolution 1\/91\), .*; too few light-free baseline windows for p < 0\.01: J = 90 \(calibrated p >= 1\/91 = 0\.011\)$/);
+  });
+  it('sparse pulses (2 s apart): the calibrated p is used and an identified unit sits at its floor 1/(J + 1)', () => {
+    const sparse = makePulses({ single: 150, periodS: 2, seed: 8 });
+    const { v, r } = judge(simulateUnit(new Rng(6), sparse.pulses, sparse.endS, 4, 1, { reliability: 0.6, latencyMs: 3, jitterMs: 0.6 }), {}, NaN, sparse.pulses, sparse.endS);
+    expect(r.saltWindows).toBe(100);
+    expect(r.salt.pCalibrated).toBe(1 / 101);
+    expect(v.tag).toBe('tagged');
+    expect(v.reason).toMatch(/^p<=0\.00991 \(calibrated SALT; resolution 1\/101\), latency 3(\.\d+)? ms, jitter 0\.\d+ ms, reliability 0\.\d+$/);
   });
   it('no pulses: untagged, "no laser pulses"', () => {
     const { v } = judge(renewalTrain(new Rng(2), 5, 0, 100), {}, NaN, emptyPulses(), 100);
@@ -75,7 +94,7 @@ describe('tagVerdict', () => {
     expect(v.reason).toMatch(/unreliable/);
   });
   it('SALT cannot run (too little light-free time): a strong answer is at most borderline, with the reason', () => {
-    const short = makePulses({ single: 200, periodS: 0.2 });
+    const short = makePulses({ single: 200, periodS: 0.2, startS: 0.1 });
     const spikes = simulateUnit(new Rng(8), short.pulses, short.endS, 4, 1, { reliability: 0.8, latencyMs: 3, jitterMs: 0.6 });
     const { v } = judge(spikes, {}, NaN, short.pulses, short.endS);
     expect(v.tag).toBe('borderline');
