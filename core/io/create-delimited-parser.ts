@@ -38,6 +38,12 @@ export interface ColumnSpec {
   readonly required: boolean;
   /** Number columns: empty cells become NaN (else an error). */
   readonly allowEmpty?: boolean;
+  /**
+   * Number and code columns: hand the column over as the parser's row blocks
+   * (table.pieces) instead of one joined array, so a long column is never
+   * copied (the spike table: buildRecording reads it piece by piece).
+   */
+  readonly pieces?: boolean;
 }
 
 export interface DelimitedSpec {
@@ -62,6 +68,11 @@ export interface DelimitedTable {
   readonly numbers: ReadonlyMap<string, Float64Array>;
   readonly codes: ReadonlyMap<string, CodeColumn>;
   readonly texts: ReadonlyMap<string, readonly string[]>;
+  /**
+   * Columns asked for with `pieces`: consecutive blocks of rows (every column's
+   * blocks have the same lengths), codes with their dictionary.
+   */
+  readonly pieces: ReadonlyMap<string, { readonly numbers?: Float64Array[]; readonly codes?: Int32Array[]; readonly dictionary?: readonly string[] }>;
   /** Extra columns (keepExtra), in header order. */
   readonly extra: ReadonlyMap<string, Float64Array | readonly string[]>;
   /** Header names present in the file but not read. */
@@ -624,11 +635,16 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
       const codes = new Map<string, CodeColumn>();
       const texts = new Map<string, readonly string[]>();
       const extra = new Map<string, Float64Array | readonly string[]>();
+      const pieces = new Map<string, { numbers?: Float64Array[]; codes?: Int32Array[]; dictionary?: readonly string[] }>();
       const wanted = new Set(spec.columns.map((c) => c.name));
+      const inPieces = new Set(spec.columns.filter((c) => c.pieces).map((c) => c.name));
       const ignored: string[] = [];
+      const last = rowCount - blockBase;
       names.forEach((name, i) => {
         const k = kinds[i];
-        if (k === K_NUMBER) numbers.set(name, join(new Float64Array(rowCount), numDone[i], numCols[i]!, rowCount - blockBase));
+        if (inPieces.has(name) && k === K_NUMBER) pieces.set(name, { numbers: blockList(numDone[i], numCols[i]!, last) });
+        else if (inPieces.has(name) && k === K_CODE) pieces.set(name, { codes: blockList(codeDone[i], codeCols[i]!, last), dictionary: dicts[i].list });
+        else if (k === K_NUMBER) numbers.set(name, join(new Float64Array(rowCount), numDone[i], numCols[i]!, rowCount - blockBase));
         else if (k === K_CODE) codes.set(name, { codes: join(new Int32Array(rowCount), codeDone[i], codeCols[i]!, rowCount - blockBase), dictionary: dicts[i].list });
         else if (k === K_TEXT) {
           const t = textCols[i]!;
@@ -652,6 +668,7 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         numbers,
         codes,
         texts,
+        pieces,
         extra,
         ignored,
         rowOf(index: number): number {
@@ -681,6 +698,11 @@ function join<T extends Float64Array | Int32Array>(out: T, full: T[], last: T, l
   }
   out.set(last.subarray(0, lastRows), o);
   return out;
+}
+
+/** The full blocks and the used part of the last one (no empty last block). */
+function blockList<T extends Float64Array | Int32Array>(full: T[], last: T, lastRows: number): T[] {
+  return lastRows > 0 ? [...full, last.subarray(0, lastRows) as T] : full.slice();
 }
 
 function growScratch(a: Uint8Array, min: number): Uint8Array {

@@ -27,6 +27,7 @@ import { parseManifest, type SessionManifest, type TableSection, type TimeUnit }
 import { readNpy, type NpyArray } from './read-npy';
 import { npySpikePieces } from './npy-spike-pieces';
 import type { RandomAccessFile, SessionSource } from './session-source';
+import { spikePieces } from './spike-pieces';
 
 export interface ImportOptions {
   /** Further parameter sources applied after session.json's (e.g. --config). */
@@ -180,14 +181,16 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
   } else {
     const uName = col(manifest.spikes, 'unit');
     const tName = col(manifest.spikes, 'time');
+    // the parser's row blocks go to buildRecording as they are (never joined into one copy)
     const t = await readTable(spikeFile, [
-      { name: uName, kind: 'code', required: true },
-      { name: tName, kind: 'number', required: true },
+      { name: uName, kind: 'code', required: true, pieces: true },
+      { name: tName, kind: 'number', required: true, pieces: true },
     ]);
-    const time = t.numbers.get(tName)!;
-    toSeconds(time, spikeUnit, spikeFile, 'spikes.time_unit');
-    const c = t.codes.get(uName)!;
-    spikes = { file: spikeFile, rowOf: t.rowOf, columns: { unit: uName, time: tName }, unitIds: c.dictionary, unit: c.codes, time };
+    const time = t.pieces.get(tName)!.numbers!;
+    const f = secondsPer(spikeUnit, spikeFile, 'spikes.time_unit');
+    if (f !== 1) for (const b of time) for (let i = 0; i < b.length; i++) b[i] *= f;
+    const c = t.pieces.get(uName)!;
+    spikes = { file: spikeFile, rowOf: t.rowOf, columns: { unit: uName, time: tName }, unitIds: c.dictionary!, pieces: spikePieces(c.codes!, time) };
   }
 
   // ---- laser pulses ------------------------------------------------------------
