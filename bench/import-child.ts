@@ -1,7 +1,8 @@
 /**
  * Child process of bench/import-bench.ts: imports one session folder the way
  * the CLI does (loadSession: node:crypto hashing, file-system source), then
- * prints one JSON line {wallMs, cpuMs, maxRssBytes, units, spikes}.
+ * prints one JSON line {wallMs, cpuMs, maxRssBytes, minorFaults, units, spikes}
+ * (minorFaults: pages of fresh memory touched by the whole process).
  * Usage: node --import tsx bench/import-child.ts <session-dir>
  */
 import { loadSession } from '../core/node/load-session';
@@ -14,4 +15,5 @@ const wallMs = performance.now() - t0;
 const c = process.cpuUsage(c0);
 let spikes = 0;
 for (const u of r.recording.units) spikes += u.spikeTimes.length;
-console.log(JSON.stringify({ wallMs, cpuMs: (c.user + c.system) / 1000, maxRssBytes: process.resourceUsage().maxRSS * 1024, units: r.recording.units.length, spikes }));
+const ru = process.resourceUsage();
+console.log(JSON.stringify({ wallMs, cpuMs: (c.user + c.system) / 1000, maxRssBytes: ru.maxRSS * 1024, minorFaults: ru.minorPageFault, units: r.recording.units.length, spikes }));

@@ -28,8 +28,10 @@
  *
  * Unit order: the unit-info table's order when given, otherwise ids in natural
  * order (numeric ids numerically, "2" before "10"; others by code point).
- * Spikes are grouped with a counting sort (O(n)) into one Float64Array; each
- * unit's spikeTimes is a view of it, sorted. Events are sorted by time,
+ * Spikes are read in pieces (SpikePieces: whole arrays, CSV row blocks, .npy
+ * pieces), twice: unit codes alone, then codes and times. They are grouped
+ * with a counting sort (O(n)) into one Float64Array, the only full-length
+ * array made here; each unit's spikeTimes is a view of it, sorted. Events are sorted by time,
  * trials by start, pulses by onset (ties keep file order).
  */
 import { InputError } from '../errors';
@@ -155,12 +157,26 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
   if (n === 0) {
     throw new InputError({ file: s.file, problem: 'the spike table has no rows', fix: 'export at least one spike (one row per spike: unit, time)' });
   }
-  // First pass over the spikes: check every time (in file order, so the first
-  // bad row is named), count spikes per unit code, note each code's first
-  // record, the latest time, and spikes that come before their unit's previous one.
+  // Pass 1 (unit codes only): spikes per unit code and each code's first record.
   const nCodes = s.unitIds.length;
   const codeCount = new Float64Array(nCodes);
   const firstOf = new Float64Array(nCodes).fill(-1);
+  pieces.forEachUnit((unit, first) => {
+    for (let i = 0; i < unit.length; i++) {
+      const c = unit[i];
+      if (!(c >= 0 && c < nCodes)) throw new Error(`spike ${first + i}: unit code ${c} out of range`); // reader bug
+      if (codeCount[c]++ === 0) firstOf[c] = first + i;
+    }
+  });
+  // Pass 2: check every time (in file order, so the first bad row is named),
+  // note the latest time and spikes that come before their unit's previous
+  // one, and group the spikes by unit code (a counting sort, stable: file order
+  // is kept within a unit, so sorted inputs need no sort). One Float64Array
+  // holds every spike; each unit's spikeTimes is a view of its code's range.
+  const codeStart = new Float64Array(nCodes + 1);
+  for (let c = 0; c < nCodes; c++) codeStart[c + 1] = codeStart[c] + codeCount[c];
+  const all = new Float64Array(n);
+  const at = n < 2 ** 31 ? Int32Array.from(codeStart.subarray(0, nCodes)) : codeStart.slice(0, nCodes);
   const lastT = new Float64Array(nCodes).fill(-Infinity);
   let unsorted = 0;
   let maxT = -Infinity;
@@ -169,17 +185,16 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     checkTimes(s, s.columns.time, time, minTime, first);
     for (let i = 0; i < time.length; i++) {
       const c = unit[i];
-      if (!(c >= 0 && c < nCodes)) throw new Error(`spike ${first + i}: unit code ${c} out of range`); // reader bug
       const x = time[i];
-      if (codeCount[c]++ === 0) firstOf[c] = first + i;
       if (x < lastT[c]) unsorted++;
       lastT[c] = x;
       if (x > maxT) {
         maxT = x;
         maxAt = first + i;
       }
+      all[at[c]++] = x;
     }
-  });
+  }, true);
   if (t.pulses) {
     checkTimes(t.pulses, t.pulses.columns.onset, t.pulses.onset, minTime);
     if (t.pulses.duration) checkOptional(t.pulses, t.pulses.columns.duration!, t.pulses.duration, 'a duration');
@@ -319,25 +334,15 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
   }
   const nUnits = unitOrder.length;
 
-  // ---- group spikes per unit (counting sort, second pass) -----------------
-  // One Float64Array holds every spike; each unit's spikeTimes is a view of
-  // it. Spikes keep file order within a unit (stable), so sorted inputs stay
-  // sorted without a sort.
-  const offsets = new Float64Array(nUnits + 1);
-  for (let c = 0; c < nCodes; c++) if (codeToUnit[c] >= 0) offsets[codeToUnit[c] + 1] = codeCount[c];
-  for (let u = 0; u < nUnits; u++) offsets[u + 1] += offsets[u];
-  const all = new Float64Array(n);
-  const at = n < 2 ** 31 ? new Int32Array(nCodes) : new Float64Array(nCodes);
-  for (let c = 0; c < nCodes; c++) at[c] = codeToUnit[c] >= 0 ? offsets[codeToUnit[c]] : 0;
-  pieces.forEach((unit, time) => {
-    for (let i = 0; i < time.length; i++) all[at[unit[i]]++] = time[i];
-  }, true);
+  const codeOfUnit = new Int32Array(nUnits).fill(-1);
+  for (let c = 0; c < nCodes; c++) if (codeToUnit[c] >= 0) codeOfUnit[codeToUnit[c]] = c;
   let duplicates = 0;
   const unitsWithDuplicates = new Set<string>();
   let empty = 0;
   const units: Unit[] = [];
   for (let u = 0; u < nUnits; u++) {
-    const st = all.subarray(offsets[u], offsets[u + 1]);
+    const c = codeOfUnit[u];
+    const st = c >= 0 ? all.subarray(codeStart[c], codeStart[c + 1]) : all.subarray(0, 0);
     if (unsorted > 0) {
       for (let i = 1; i < st.length; i++) {
         if (st[i] < st[i - 1]) {

@@ -609,17 +609,30 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
       pos = q;
     }
     const stop = parseRecords(buf, pos, final);
-    leftover = stop < buf.length ? buf.slice(stop) : null;
+    if (stop >= buf.length) leftover = null;
+    else if (buf.buffer === work.buffer) {
+      // keep the partial record at the start of the work buffer (no new allocation)
+      work.copyWithin(0, buf.byteOffset + stop, buf.byteOffset + buf.length);
+      leftover = work.subarray(0, buf.length - stop);
+    } else leftover = buf.slice(stop);
   }
+
+  /** Reused buffer joining a partial record with the next chunk (grows to the largest chunk + record). */
+  let work = new Uint8Array(0);
 
   return {
     push(chunk: Uint8Array): void {
       if (chunk.length === 0) return;
       let buf: Uint8Array<ArrayBufferLike> = chunk;
       if (leftover) {
-        buf = new Uint8Array(leftover.length + chunk.length);
-        buf.set(leftover);
-        buf.set(chunk, leftover.length);
+        const L = leftover.length;
+        if (work.length < L + chunk.length) {
+          const w = new Uint8Array(Math.max(L + chunk.length, Math.ceil(work.length * 1.5)));
+          w.set(leftover);
+          work = w;
+        } else if (leftover.buffer !== work.buffer || leftover.byteOffset !== 0) work.set(leftover);
+        work.set(chunk, L);
+        buf = work.subarray(0, L + chunk.length);
         leftover = null;
       }
       feed(buf, false);

@@ -8,7 +8,7 @@
  * Reads the units file once in full first (hashing every byte with its
  * `hash`, and giving each distinct unit id its code in order of first
  * appearance, the same codes whatever the piece length); the times file is
- * hashed during the first visit of the pieces. Every visit reads both files
+ * hashed during the first visit of the pieces (forEach). Every visit reads both files
  * by offset (the second time from the operating system's file cache)
  * and converts each piece: unit values to codes, times to float64 seconds
  * (times are multiplied by `timeFactor(header)`, e.g. 1 / sample rate for
@@ -173,6 +173,14 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
       if (hashing) {
         hashRange(timesIn, th.dataStart + n * th.itemSize, timesIn.data.size);
         timesHash = 'done';
+      }
+    },
+    forEachUnit(visit) {
+      for (let first = 0; first < n; first += P) {
+        const m = Math.min(P, n - first);
+        readRange(unitsIn, uh.dataStart + first * uh.itemSize, uBuf.subarray(0, m * uh.itemSize));
+        unitCodes(first, m);
+        visit(codes.subarray(0, m), first);
       }
     },
   };
