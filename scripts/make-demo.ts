@@ -6,10 +6,10 @@
  * Run: npm run demo  (optional: --seed N --out DIR, for other sessions of
  * the same scenario; the bundled demo uses the defaults).
  */
-import { writeFileSync } from 'node:fs';
+import { mkdirSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { writeFolderAtomic } from '../core/node/write-folder-atomic';
+import { writeOutputFolder } from '../core/node/write-output-folder';
 import { DEMO_SEED, demoScenario } from '../core/sim/demo-scenario';
 import { sessionFiles, type SessionFile } from '../core/sim/session-files';
 import { simulateSession } from '../core/sim/simulate-session';
@@ -157,7 +157,8 @@ function main(): void {
   const outRoot = resolve(opt('--out') ?? join(root, 'sample-data'));
   const t0 = performance.now();
   const demo = buildDemo(seed);
-  writeFolderAtomic(join(outRoot, 'demo'), demo.session);
+  mkdirSync(outRoot, { recursive: true });
+  writeOutputFolder(join(outRoot, 'demo'), Object.fromEntries(demo.session.map((f) => [f.name, f.data])), { replace: 'any' });
   writeFileSync(join(outRoot, 'demo-truth.csv'), demo.truthCsv);
   writeFileSync(join(outRoot, 'README.md'), demo.readme);
   console.log(`demo session written to ${join(outRoot, 'demo')} (seed ${seed}, ${((performance.now() - t0) / 1000).toFixed(1)} s)`);

@@ -1,5 +1,5 @@
 /** Unit table exports and their readers (public barrel). */
-export { buildProvenance, type Provenance } from './build-provenance';
+export { buildRunRecord, type CurationSummary, type RunRecordInput } from './build-run-record';
 export { formatTable, TABLE_FORMATS, type TableFormat } from './format-table';
 export { formatTableJson, TABLE_JSON_FORMAT, TABLE_JSON_VERSION } from './format-table-json';
 export { parseDelimited } from './parse-delimited';

@@ -7,6 +7,8 @@
  * ...settings}}), goes to loadNwbSession with the path and the section as
  * given. Its validation belongs to the NWB reader.
  *
+ * In the folder case `inputs` lists session.json first, then the NWB file.
+ *
  * Errors: InputError for a missing path, a file that is neither a folder nor
  * .nwb, and everything the importers report.
  */
@@ -43,7 +45,13 @@ export async function loadSession(path: string, options: ImportOptions = {}): Pr
       const nwbPath = join(path, sec.file);
       if (!existsSync(nwbPath)) throw new InputError({ file: MANIFEST_FILE, column: 'nwb.file', value: sec.file, problem: 'names a file that is not in the session folder' });
       const params = m.parameters !== undefined ? [{ file: MANIFEST_FILE, overrides: m.parameters }] : [];
-      return loadNwbSession(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] });
+      const r = await loadNwbSession(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] });
+      // session.json chose the file and may set parameters: it is an input too (size + SHA-256), and the
+      // NWB file is named as session.json names it (relative to the folder)
+      const bytes = readFileSync(manifestPath);
+      const h = (opts.createHash ?? nodeSha256)();
+      h.update(bytes);
+      return { ...r, inputs: [{ file: MANIFEST_FILE, bytes: bytes.length, sha256: h.digestHex() }, ...r.inputs.map((i) => ({ ...i, file: sec.file as string }))] };
     }
   }
   return importSession(createFsSessionSource(path), opts);

@@ -10,6 +10,10 @@
  * either the complete old or the complete new output exists under a name.
  * The output may not lie inside the input session folder (inputs are
  * never written). On any failure the temporary folder is removed.
+ *
+ * `replace: 'any'` lets the caller replace any existing folder (used only
+ * for folders tagbench itself generates, such as the bundled demo session
+ * and test fixtures); the old-or-new guarantee is the same.
  */
 import { existsSync, mkdirSync, readFileSync, readdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
@@ -17,7 +21,15 @@ import { InputError } from '../errors';
 
 let counter = 0;
 
-export function writeOutputFolder(outDir: string, files: Readonly<Record<string, string>>, inputDir?: string): void {
+export interface WriteOutputFolderOptions {
+  /** The input session folder: the output may not be it or lie inside it. */
+  readonly inputDir?: string;
+  /** Which existing folder may be replaced: only an empty one or an earlier tagbench output (default), or any. */
+  readonly replace?: 'tagbench-output' | 'any';
+}
+
+export function writeOutputFolder(outDir: string, files: Readonly<Record<string, string | Uint8Array>>, options: WriteOutputFolderOptions = {}): void {
+  const { inputDir, replace = 'tagbench-output' } = options;
   const out = resolve(outDir);
   if (inputDir !== undefined) {
     const input = resolve(inputDir);
@@ -32,7 +44,7 @@ export function writeOutputFolder(outDir: string, files: Readonly<Record<string,
   }
   if (existsSync(out)) {
     if (!statSync(out).isDirectory()) throw new InputError({ file: outDir, problem: 'exists and is a file, not a folder', fix: 'choose another --out' });
-    if (!isReplaceable(out)) {
+    if (replace !== 'any' && !isReplaceable(out)) {
       throw new InputError({ file: outDir, problem: 'exists and is not an earlier tagbench output (no tagbench run.json in it), so it is left untouched', fix: 'choose a new or empty --out folder' });
     }
   }

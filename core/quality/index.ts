@@ -7,6 +7,7 @@ export { localVariation } from './local-variation';
 export { presenceRatio } from './presence-ratio';
 export { qualityStep } from './quality-step';
 export { QUALITY_VERDICTS, qualityVerdict, type QualityVerdict } from './quality-verdict';
+export { driftSegments, type DriftSegments } from './drift-segments';
 export { rateDrift, type RateDrift } from './rate-drift';
 export { unitQuality, type UnitQuality } from './unit-quality';
 export { waveformShape, type WaveformShape } from './waveform-shape';

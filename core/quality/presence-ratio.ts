@@ -2,15 +2,49 @@
  * Presence ratio: the fraction of `nBins` equal time bins over [startS, stopS)
  * that hold at least one spike (common practice; 100 bins is usual).
  *
+ * `observed` (flat pairs [start0, stop0, start1, stop1, ...], s, sorted and
+ * not overlapping, e.g. NWB `obs_intervals`) limits the ratio to the time the
+ * unit was observed: only bins at least half inside observed time count, in
+ * the numerator and the denominator, so a unit recorded for part of the
+ * session is not marked absent where nobody looked (our rule; the half-bin
+ * threshold is ours). Without `observed` every bin counts.
+ *
  * A spike exactly at stopS counts in the last bin; spikes outside the span are
- * ignored. Returns NaN when the span is empty or nBins < 1. Sorted spike
- * times, single pass, O(n).
+ * ignored. Returns NaN when the span is empty, nBins < 1 or no bin is
+ * observed. Sorted spike times, single pass, O(n + bins + intervals).
  */
-export function presenceRatio(spikeTimes: ArrayLike<number>, startS: number, stopS: number, nBins: number): number {
+export function presenceRatio(spikeTimes: ArrayLike<number>, startS: number, stopS: number, nBins: number, observed?: ArrayLike<number>): number {
   const len = stopS - startS;
   const bins = Math.floor(nBins);
   if (!(len > 0) || !(bins >= 1)) return NaN;
   const width = len / bins;
+  // which bins count: all, or those at least half inside observed time
+  let eligible: Uint8Array | null = null;
+  let nEligible = bins;
+  if (observed) {
+    const cover = new Float64Array(bins);
+    for (let j = 0; j + 1 < observed.length; j += 2) {
+      const a = Math.max(startS, observed[j]);
+      const b = Math.min(stopS, observed[j + 1]);
+      if (!(b > a)) continue;
+      const first = Math.min(bins - 1, Math.floor((a - startS) / width));
+      const last = Math.min(bins - 1, Math.floor((b - startS) / width));
+      for (let k = first; k <= last; k++) {
+        const lo = Math.max(a, startS + k * width);
+        const hi = Math.min(b, startS + (k + 1) * width);
+        if (hi > lo) cover[k] += hi - lo;
+      }
+    }
+    eligible = new Uint8Array(bins);
+    nEligible = 0;
+    for (let k = 0; k < bins; k++) {
+      if (cover[k] >= 0.5 * width) {
+        eligible[k] = 1;
+        nEligible++;
+      }
+    }
+    if (nEligible === 0) return NaN;
+  }
   let occupied = 0;
   let last = -1;
   for (let i = 0; i < spikeTimes.length; i++) {
@@ -19,9 +53,9 @@ export function presenceRatio(spikeTimes: ArrayLike<number>, startS: number, sto
     let b = Math.floor((t - startS) / width);
     if (b >= bins) b = bins - 1;
     if (b !== last) {
-      occupied++;
+      if (eligible === null || eligible[b] === 1) occupied++;
       last = b;
     }
   }
-  return occupied / bins;
+  return occupied / nEligible;
 }

@@ -1,6 +1,7 @@
 import type { AnalysisStep } from '../pipeline/types';
 import type { Column } from '../table/types';
 import { QUALITY_VERDICTS, qualityVerdict } from './quality-verdict';
+import { driftSegments } from './drift-segments';
 import { lightWindows } from './light-windows';
 import { unitQuality } from './unit-quality';
 
@@ -32,8 +33,9 @@ export const qualityStep: AnalysisStep = {
     let atLeastHalf = 0;
     // light-evoked spikes (the light test window after each pulse) do not count as drift
     const light = lightWindows(recording.pulses.onset, parameters.light.windowStartMs, parameters.light.windowEndMs);
+    const segments = driftSegments(recording.span[0], recording.span[1], q.driftSegments, light);
     recording.units.forEach((u, i) => {
-      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, light);
+      const m = unitQuality(u.spikeTimes, recording.span, q, u.waveformMean, recording.waveformSampleRateHz, segments, u.observedIntervals);
       cols.isiCount[i] = m.isiViolationCount;
       cols.isiFrac[i] = m.isiViolationFraction;
       cols.cont[i] = m.contamination;
@@ -56,7 +58,7 @@ export const qualityStep: AnalysisStep = {
         num('isi_violations', cols.isiCount, `Number of ISIs shorter than the refractory period (${q.refractoryMs} ms)`),
         num('isi_violation_fraction', cols.isiFrac, 'Violating ISIs / all ISIs'),
         num('contamination', cols.cont, 'Contaminating fraction, Hill, Mehta & Kleinfeld (2011); empty when undefined (>= 0.5, see quality_reason)'),
-        num('presence_ratio', cols.presence, `Fraction of ${q.presenceBins} equal time bins holding a spike`),
+        num('presence_ratio', cols.presence, `Fraction of ${q.presenceBins} equal time bins holding a spike (only bins the unit was observed in, when the inputs give observation intervals)`),
         num('lv', cols.lv, 'Local variation of ISIs, Shinomoto et al. (2003); 1 for Poisson'),
         num('cv2', cols.cv2, 'CV2 of adjacent ISIs, Holt et al. (1996); 1 for Poisson'),
         num('rate_drift_cv', cols.driftCv, `Coefficient of variation of the rate over ${q.driftSegments} equal segments of the span (light test windows after pulses left out)`),

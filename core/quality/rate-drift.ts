@@ -1,3 +1,5 @@
+import type { DriftSegments } from './drift-segments';
+
 /**
  * Rate stability over the session. The span [startS, stopS) is cut into
  * `nSegments` equal consecutive segments and the firing rate of each is
@@ -12,7 +14,8 @@
  *   drifts away from it). Rounding noise of a flat rate is written as 0.
  *
  * Segment choice: our own (no published standard); 10 segments by default.
- * `exclude` (sorted, non-overlapping intervals, e.g. lightWindows) removes
+ * The segments come from driftSegments (computed once per session); its
+ * `exclude` intervals (sorted, non-overlapping, e.g. lightWindows) remove
  * both the spikes inside the intervals and the intervals' time from each
  * segment, so a segment's rate is that of the remaining time. A segment
  * with less than 1 % of its time left gets a NaN rate and is left out of
@@ -29,36 +32,13 @@ export interface RateDrift {
   readonly slopeHzPerMin: number;
 }
 
-export function rateDrift(
-  spikeTimes: ArrayLike<number>,
-  startS: number,
-  stopS: number,
-  nSegments: number,
-  exclude?: { readonly startS: ArrayLike<number>; readonly stopS: ArrayLike<number> },
-): RateDrift {
-  const k = Math.floor(nSegments);
+export function rateDrift(spikeTimes: Float64Array, segments: DriftSegments): RateDrift {
+  const { startS, stopS, count: k, widthS: width, timeLeftS: kept } = segments;
+  if (k === 0) return { ratesHz: new Float64Array(0), centresS: new Float64Array(0), cv: NaN, slopeHzPerMin: NaN };
   const len = stopS - startS;
-  if (!(len > 0) || !(k >= 2)) {
-    return { ratesHz: new Float64Array(0), centresS: new Float64Array(0), cv: NaN, slopeHzPerMin: NaN };
-  }
-  const width = len / k;
   const counts = new Float64Array(k);
-  const kept = new Float64Array(k).fill(width);
-  const xs = exclude?.startS ?? [];
-  const xe = exclude?.stopS ?? [];
-  // time removed from each segment by the excluded intervals
-  for (let j = 0; j < xs.length; j++) {
-    const a = Math.max(startS, xs[j]);
-    const b = Math.min(stopS, xe[j]);
-    if (!(b > a)) continue;
-    const first = Math.min(k - 1, Math.floor((a - startS) / width));
-    const last = Math.min(k - 1, Math.floor((b - startS) / width));
-    for (let seg = first; seg <= last; seg++) {
-      const lo = Math.max(a, startS + seg * width);
-      const hi = Math.min(b, startS + (seg + 1) * width);
-      if (hi > lo) kept[seg] -= hi - lo;
-    }
-  }
+  const xs = segments.exclude.startS;
+  const xe = segments.exclude.stopS;
   let x = 0;
   for (let i = 0; i < spikeTimes.length; i++) {
     const t = spikeTimes[i];

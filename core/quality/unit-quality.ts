@@ -4,6 +4,7 @@ import { hillContamination } from './hill-contamination';
 import { isiViolations } from './isi-violations';
 import { localVariation } from './local-variation';
 import { presenceRatio } from './presence-ratio';
+import { driftSegments, type DriftSegments } from './drift-segments';
 import { rateDrift } from './rate-drift';
 import { waveformShape } from './waveform-shape';
 
@@ -30,8 +31,11 @@ export interface UnitQuality {
  * Computes all quality metrics of one unit over the recording span with the
  * `quality` parameters (refractory/censored periods in ms, presence bins,
  * drift segments). Spikes outside the span are ignored for every metric.
- * `exclude` (e.g. lightWindows after each laser pulse) is left out of the
- * rate-drift screen only (see rateDrift).
+ * `segments` are the rate-drift segments of the session (driftSegments,
+ * computed once for all units, with e.g. lightWindows after each laser
+ * pulse left out); by default the span in q.driftSegments plain segments.
+ * `observedIntervals` (NWB obs_intervals) limit the presence ratio to the
+ * time the unit was observed (see presenceRatio).
  * Waveform metrics need `waveform` and a finite `waveformSampleRateHz`.
  */
 export function unitQuality(
@@ -40,7 +44,8 @@ export function unitQuality(
   q: Parameters['quality'],
   waveform?: Float64Array,
   waveformSampleRateHz = NaN,
-  exclude?: { readonly startS: ArrayLike<number>; readonly stopS: ArrayLike<number> },
+  segments?: DriftSegments,
+  observedIntervals?: Float64Array,
 ): UnitQuality {
   const [t0, t1] = span;
   let a = 0;
@@ -53,7 +58,7 @@ export function unitQuality(
   const refractoryS = q.refractoryMs / 1000;
   const viol = isiViolations(s, refractoryS);
   const cont = hillContamination(viol.count, n, len, refractoryS, q.censoredMs / 1000);
-  const drift = rateDrift(s, t0, t1, q.driftSegments, exclude);
+  const drift = rateDrift(s, segments ?? driftSegments(t0, t1, q.driftSegments));
   const shape = waveform ? waveformShape(waveform, waveformSampleRateHz) : { troughToPeakMs: NaN, halfWidthMs: NaN };
   return {
     nSpikes: n,
@@ -62,7 +67,7 @@ export function unitQuality(
     isiViolationFraction: viol.fraction,
     contamination: cont.value,
     contaminationAtLeastHalf: cont.atLeastHalf,
-    presenceRatio: presenceRatio(s, t0, t1, q.presenceBins),
+    presenceRatio: presenceRatio(s, t0, t1, q.presenceBins, observedIntervals),
     lv: localVariation(s),
     cv2: cv2(s),
     rateDriftCv: drift.cv,

@@ -119,6 +119,31 @@ export function ExportScreen(props: {
               <span className="muted">the curated table, tab-separated or as JSON</span>
             </li>
             <li>
+              <button
+                disabled={working}
+                onClick={() =>
+                  save(
+                    'run.json',
+                    () =>
+                      client.runRecordText({
+                        curation,
+                        finishedAt: new Date().toISOString(),
+                        toolVersion: typeof __TAGBENCH_VERSION__ === 'string' ? __TAGBENCH_VERSION__ : 'unknown',
+                        source: session.opened.displayPath,
+                        sessionFile: SESSION_FILE_NAME,
+                        notices: [],
+                        outputs: ['units.csv', 'units_curated.csv'],
+                      }),
+                    'application/json',
+                  )
+                }
+                data-testid="export-run-json"
+              >
+                run.json
+              </button>
+              <span className="muted">provenance of the tables: tool version, parameters, input files with SHA-256, warnings, analysis summaries, curation counts (the record `tagbench export` writes)</span>
+            </li>
+            <li>
               <button disabled={working} onClick={() => save(`${base}_report.html`, report, 'text/html')} data-testid="export-report">
                 HTML report
               </button>

@@ -96,6 +96,18 @@ export interface ReportRequest {
   readonly plotlySource: string;
 }
 
+/** What the page adds to a run.json request (the provenance of an exported table). */
+export interface RunRecordRequest {
+  readonly curation: CurationState;
+  readonly finishedAt: string;
+  readonly toolVersion: string;
+  readonly source: string;
+  readonly sessionFile: string | null;
+  readonly notices: readonly string[];
+  /** The files this record describes, e.g. ["units_curated.csv"]. */
+  readonly outputs: readonly string[];
+}
+
 export interface WorkbenchApi {
   /** Imports a session and runs the analysis with the given parameter overrides. */
   open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome>;
@@ -108,4 +120,6 @@ export interface WorkbenchApi {
   tableText(format: TableFormat, curation: CurationState | null): Promise<string>;
   /** The self-contained HTML report (core/report/build-report.ts) of the curated table, every figure and the provenance. */
   reportHtml(input: ReportRequest): Promise<string>;
+  /** run.json of the current analysis (core/export/build-run-record.ts: the same record `tagbench export` writes). */
+  runRecordText(input: RunRecordRequest): Promise<string>;
 }

@@ -1,6 +1,6 @@
 import { proxy, wrap, type Remote } from 'comlink';
 import type { CurationState } from '../../core/curation/types';
-import type { ReportRequest } from './api';
+import type { ReportRequest, RunRecordRequest } from './api';
 import type { AnalysisOutcome, EventView, OpenOutcome, PopulationView, Progress, SessionFileInput, TableFormat, UnitView, WorkbenchApi } from './api';
 
 /** Thrown into a pending call when the user cancels it. */
@@ -70,6 +70,10 @@ export class AnalysisClient {
 
   reportHtml(r: ReportRequest): Promise<string> {
     return this.cancellable(this.api.reportHtml(r));
+  }
+
+  runRecordText(r: RunRecordRequest): Promise<string> {
+    return this.cancellable(this.api.runRecordText(r));
   }
 
   /** Stops whatever the worker is doing; pending calls reject with CancelledError. */

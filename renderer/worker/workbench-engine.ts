@@ -13,7 +13,8 @@ import type { Recording, Warning } from '../../core/model/types';
 import { assembleTable } from '../../core/table/assemble-table';
 import type { Column, UnitTable } from '../../core/table/types';
 import { STEPS } from '../../core/pipeline/steps';
-import type { ReportRequest } from './api';
+import type { ReportRequest, RunRecordRequest } from './api';
+import { buildRunRecord } from '../../core/export/build-run-record';
 import type { AnalysisOutcome, EventView, OpenOutcome, PlacedFigure, PopulationView, Progress, SessionFileInput, TableData, TableFormat, UnitSection, UnitView, WorkbenchApi } from './api';
 import { POPULATION_FIGURE_LIST, UNIT_FIGURE_LIST } from './figure-lists';
 import { isVerdictColumn } from '../state/verdict-columns';
@@ -35,6 +36,8 @@ export class WorkbenchEngine implements WorkbenchApi {
   private importWarnings: readonly Warning[] = [];
   private analysisWarnings: readonly Warning[] = [];
   private summaries: Readonly<Record<string, unknown>> = {};
+  private openedAt = '';
+  private session: { name: string; kind: 'folder' | 'nwb' } = { name: '', kind: 'folder' };
 
   async open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome> {
     onProgress({ label: `Importing ${name}`, done: 0, total: 1 });
@@ -43,6 +46,8 @@ export class WorkbenchEngine implements WorkbenchApi {
     this.sessionParameters = imported.parameterSources;
     this.inputs = imported.inputs;
     this.importWarnings = imported.warnings;
+    this.session = { name: imported.name, kind: imported.sourceKind };
+    this.openedAt = new Date().toISOString();
     const outcome = await this.analyse(overrides, onProgress);
     return {
       ...outcome,
@@ -131,6 +136,34 @@ export class WorkbenchEngine implements WorkbenchApi {
   async tableText(format: TableFormat, curation: CurationState | null): Promise<string> {
     const t = this.needTable();
     return formatTable(curation ? applyCuration(t, curation).table : t, format);
+  }
+
+  async runRecordText(r: RunRecordRequest): Promise<string> {
+    const cu = Object.values(r.curation.units);
+    const ids = new Set(this.need().units.map((u) => u.id));
+    return buildRunRecord({
+      version: r.toolVersion,
+      command: 'workbench export',
+      startedAt: this.openedAt,
+      finishedAt: r.finishedAt,
+      session: { name: this.session.name, path: r.source, kind: this.session.kind },
+      sessionFile: r.sessionFile,
+      inputs: this.inputs,
+      parameterFiles: [...this.sessionParameters.map((s) => s.file), 'Analysis settings'],
+      parameters: this.needParameters(),
+      recording: this.need(),
+      warnings: [...this.importWarnings, ...this.analysisWarnings],
+      steps: this.summaries,
+      curation: {
+        unitsCurated: cu.length,
+        labels: cu.reduce((n, u) => n + Object.keys(u.labels).length, 0),
+        excluded: cu.filter((u) => u.include?.value === false).length,
+        orphans: Object.keys(r.curation.units).filter((id) => !ids.has(id)),
+      },
+      notices: r.notices,
+      outputs: r.outputs,
+      table: applyCuration(this.needTable(), r.curation).table,
+    });
   }
 
   async reportHtml(r: ReportRequest): Promise<string> {

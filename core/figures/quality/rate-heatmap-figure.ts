@@ -1,3 +1,4 @@
+import { driftSegments } from '../../quality/drift-segments';
 import { rateDrift } from '../../quality/rate-drift';
 import { BASE_LAYOUT } from '../theme';
 import type { PopulationFigure } from '../types';
@@ -18,8 +19,9 @@ export const rateHeatmapFigure: PopulationFigure = {
     const bins = Math.max(2, parameters.quality.presenceBins);
     let x: number[] = [];
     const z: (number | null)[][] = [];
+    const segments = driftSegments(t0, t1, bins);
     for (const u of recording.units) {
-      const d = rateDrift(u.spikeTimes, t0, t1, bins);
+      const d = rateDrift(u.spikeTimes, segments);
       if (x.length === 0) x = Array.from(d.centresS, (t) => t / 60);
       let mean = 0;
       for (const r of d.ratesHz) mean += r / d.ratesHz.length;

@@ -1,5 +1,6 @@
 import { presenceRatio } from '../../quality/presence-ratio';
 import { lightWindows } from '../../quality/light-windows';
+import { driftSegments } from '../../quality/drift-segments';
 import { rateDrift } from '../../quality/rate-drift';
 import { BASE_LAYOUT, OKABE_ITO } from '../theme';
 import type { UnitFigure } from '../types';
@@ -19,10 +20,10 @@ export const rateOverSessionFigure: UnitFigure = {
     if (!(t1 > t0)) return null;
     const q = parameters.quality;
     const u = recording.units[i];
-    const fine = rateDrift(u.spikeTimes, t0, t1, Math.max(2, q.presenceBins));
+    const fine = rateDrift(u.spikeTimes, driftSegments(t0, t1, Math.max(2, q.presenceBins)));
     const light = lightWindows(recording.pulses.onset, parameters.light.windowStartMs, parameters.light.windowEndMs);
-    const coarse = rateDrift(u.spikeTimes, t0, t1, Math.max(2, q.driftSegments), light);
-    const pr = presenceRatio(u.spikeTimes, t0, t1, q.presenceBins);
+    const coarse = rateDrift(u.spikeTimes, driftSegments(t0, t1, Math.max(2, q.driftSegments), light));
+    const pr = presenceRatio(u.spikeTimes, t0, t1, q.presenceBins, u.observedIntervals);
     const w = (t1 - t0) / coarse.ratesHz.length;
     const sx: number[] = [];
     const sy: (number | null)[] = [];

@@ -16,6 +16,7 @@ const USAGE = `Usage:
   tagbench curate <session-file> --unit <id> [--label <word> [--column <verdict>]] [--clear-label]
                   [--note <text>] [--clear-note] [--include | --exclude | --clear-include] [--by <name>]
   tagbench curate <session-file> --show
+  tagbench curate <session-file> --undo
 
 Stores a person's decisions beside the computed results in a session file
 (JSON; saved atomically, the previous version kept as <session-file>.bak).
@@ -30,7 +31,9 @@ computed column (e.g. tag) and the final one (final_tag).
   --note <text>       set the unit's note (--clear-note removes it)
   --include/--exclude mark the unit included or excluded (--clear-include: back to default)
   --by <name>         who decides (default: the login name, or $TAGBENCH_USER)
-  --show              list the curation of every curated unit`;
+  --show              list the curation of every curated unit
+  --undo              go back to the version before the last save (the .bak file);
+                      the undone version becomes the .bak, so --undo again redoes it`;
 
 /** `tagbench curate`: scripted curation of a session file. */
 export function makeCurateCommand(deps: SessionCommandDeps): Command {
@@ -39,7 +42,7 @@ export function makeCurateCommand(deps: SessionCommandDeps): Command {
     summary: 'Label, note, include or exclude units in a session file (computed verdicts are kept)',
     usage: USAGE,
     async run(argv, io) {
-      const { positionals, options, flags } = splitOptions(argv, 'curate', ['--create', '--unit', '--label', '--column', '--note', '--by'], ['--clear-label', '--clear-note', '--include', '--exclude', '--clear-include', '--show']);
+      const { positionals, options, flags } = splitOptions(argv, 'curate', ['--create', '--unit', '--label', '--column', '--note', '--by'], ['--clear-label', '--clear-note', '--include', '--exclude', '--clear-include', '--show', '--undo']);
       if (flags.has('--help') || flags.has('-h')) {
         io.stdout(`${USAGE}\n`);
         return 0;
@@ -74,6 +77,20 @@ export function makeCurateCommand(deps: SessionCommandDeps): Command {
           if (u.note) bits.push(`note "${u.note.text}" (${u.note.by}, ${u.note.at})`);
           io.stdout(`unit ${id}: ${bits.join('; ')}\n`);
         }
+        return 0;
+      }
+
+      if (flags.has('--undo')) {
+        if (loaded.fromBackup) throw new InputError({ file: name, problem: 'the session file could not be used and its backup was loaded, so there is no later version to undo', fix: 'save a decision first (the broken file is then replaced), or inspect the two files' });
+        const bak = `${file}.bak`;
+        if (!existsSync(bak)) throw new InputError({ file: name, problem: 'there is nothing to undo: no earlier version (.bak) exists yet' });
+        const before = loadSessionFile(bak);
+        if (before.fromBackup) throw new InputError({ file: `${name}.bak`, problem: 'the earlier version cannot be read', fix: 'inspect the file; the current session file was left as it is' });
+        if (before.session.source !== s.source) throw new InputError({ file: `${name}.bak`, problem: `belongs to another data source (${before.session.source}, not ${s.source})`, fix: 'the current session file was left as it is' });
+        // saving the earlier version makes the current one the new .bak: a second --undo redoes
+        saveSessionFile(file, before.session);
+        const count = (x: typeof s) => Object.keys(x.curation.units).length;
+        io.stdout(`Restored the version of ${name} saved at ${before.session.savedAt} (${count(before.session)} curated unit(s); the undone version, ${count(s)} unit(s), is now ${name}.bak: run --undo again to redo).\n`);
         return 0;
       }
 

@@ -1,6 +1,6 @@
 import { existsSync, statSync } from 'node:fs';
 import { basename, dirname, resolve } from 'node:path';
-import { buildProvenance } from '../../export/build-provenance';
+import { buildRunRecord } from '../../export/build-run-record';
 import { formatTable, TABLE_FORMATS, type TableFormat } from '../../export/format-table';
 import { InputError } from '../../errors';
 import { openSession, type OpenedSession } from '../open-session';
@@ -46,12 +46,13 @@ export function makeExportCommand(deps: SessionCommandDeps): Command {
       }
       const outAbs = resolve(out);
 
+      const startedAt = deps.now().toISOString();
       const opened = await openSession(positionals[0], deps.importSource, { allowChangedInputs: flags.has('--allow-changed-inputs') });
       for (const n of opened.notices) io.stderr(`${n}\n`);
       refuseInsideInputs(outAbs, opened);
       const files: Record<string, string> = {};
       for (const f of formats as TableFormat[]) files[`units.${f}`] = formatTable(opened.table, f);
-      files['run.json'] = provenanceOf(opened, deps, 'export', Object.keys(files));
+      files['run.json'] = provenanceOf(opened, deps, 'export', Object.keys(files), startedAt);
       // all files or none (an earlier tagbench output there is replaced; anything else is refused)
       writeOutputFolder(outAbs, files);
       io.stdout(`Wrote ${Object.keys(files).join(', ')} to ${out} (${opened.table.rowCount} units, ${opened.table.columns.length} columns).\n`);
@@ -70,19 +71,23 @@ export function refuseInsideInputs(outAbs: string, opened: OpenedSession): void 
   }
 }
 
-/** run.json text for an export or report. */
-export function provenanceOf(opened: OpenedSession, deps: SessionCommandDeps, command: string, outputs: readonly string[]): string {
+/** run.json text for an output made from an opened (possibly curated) session. */
+export function provenanceOf(opened: OpenedSession, deps: SessionCommandDeps, command: string, outputs: readonly string[], startedAt: string): string {
   const cu = Object.values(opened.curation.units);
-  return buildProvenance({
-    tool: { name: 'tagbench', version: deps.toolVersion },
+  const src = resolve(opened.source);
+  return buildRunRecord({
+    version: deps.toolVersion,
     command,
-    createdAt: deps.now().toISOString(),
+    startedAt,
+    finishedAt: deps.now().toISOString(),
+    session: { name: opened.imported.name, path: src, kind: opened.imported.sourceKind },
     sessionFile: opened.sessionFile,
-    source: opened.source,
     inputs: opened.imported.inputs,
+    parameterFiles: opened.imported.parameterSources.map((s) => s.file),
     parameters: opened.parameters,
+    recording: opened.imported.recording,
     warnings: [...opened.imported.warnings, ...opened.analysis.warnings],
-    summaries: opened.analysis.summaries,
+    steps: opened.analysis.summaries,
     curation: {
       unitsCurated: cu.length,
       labels: cu.reduce((n, u) => n + Object.keys(u.labels).length, 0),
@@ -90,8 +95,8 @@ export function provenanceOf(opened: OpenedSession, deps: SessionCommandDeps, co
       orphans: opened.orphans,
     },
     notices: opened.notices,
-    outputs,
-    columns: opened.table.columns.map((c) => c.name),
+    outputs: outputs.filter((o) => o !== 'run.json'),
+    table: opened.table,
   });
 }
 

@@ -1,6 +1,7 @@
 import { readFileSync, existsSync, statSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import { InputError } from '../../errors';
+import { buildRunRecord } from '../../export/build-run-record';
 import { analyseRecording } from '../../pipeline/analyse-recording';
 import { resolveParameters } from '../../resolve-parameters';
 import { formatDelimited } from '../../table/format-delimited';
@@ -58,31 +59,25 @@ export const runCommand: Command = {
     const parameters = resolveParameters(imported.parameterSources);
     const analysis = analyseRecording(imported.recording, parameters);
     const rec = imported.recording;
-    const runRecord = {
-      tool: 'tagbench',
+    const warnings = [...imported.warnings, ...analysis.warnings];
+    const runJson = buildRunRecord({
       version: toolVersion(),
       command: 'run',
       startedAt: started.toISOString(),
       finishedAt: new Date().toISOString(),
       session: { name: imported.name, path: resolve(session), kind: imported.sourceKind },
+      sessionFile: null,
       inputs: imported.inputs,
       parameterFiles: imported.parameterSources.map((s) => s.file),
       parameters,
-      recording: {
-        units: rec.units.length,
-        spikes: rec.units.reduce((n, u) => n + u.spikeTimes.length, 0),
-        spanS: rec.span,
-        spanSource: rec.spanSource,
-        pulses: rec.pulses.onset.length,
-        events: rec.events.time.length,
-        trials: rec.trials.trial.length,
-      },
-      warnings: [...imported.warnings, ...analysis.warnings],
+      recording: rec,
+      warnings,
       steps: analysis.summaries,
-      columns: analysis.table.columns.map((c) => ({ name: c.name, description: c.description })),
-    };
-    writeOutputFolder(out, { 'units.csv': formatDelimited(analysis.table), 'run.json': `${JSON.stringify(runRecord, null, 2)}\n` }, statSync(session).isDirectory() ? session : undefined);
-    const w = runRecord.warnings.length;
+      outputs: ['units.csv'],
+      table: analysis.table,
+    });
+    writeOutputFolder(out, { 'units.csv': formatDelimited(analysis.table), 'run.json': runJson }, { inputDir: statSync(session).isDirectory() ? session : undefined });
+    const w = warnings.length;
     io.stdout(`tagbench run: ${rec.units.length} units -> ${resolve(out)}/units.csv, run.json${w ? ` (${w} warning${w > 1 ? 's' : ''}: see run.json)` : ''}\n`);
     return 0;
   },

@@ -7,6 +7,7 @@ import { isiViolations } from '../../../core/quality/isi-violations';
 import { localVariation } from '../../../core/quality/local-variation';
 import { lightWindows } from '../../../core/quality/light-windows';
 import { presenceRatio } from '../../../core/quality/presence-ratio';
+import { driftSegments } from '../../../core/quality/drift-segments';
 import { rateDrift } from '../../../core/quality/rate-drift';
 import { Rng } from '../../../core/random/rng';
 
@@ -106,6 +107,18 @@ describe('presenceRatio (fraction of equal bins holding a spike; common practice
     expect(presenceRatio(t, 0, 0, 10)).toBeNaN();
     expect(presenceRatio(t, 0, 10, 0)).toBeNaN();
   });
+  it('counts only bins the unit was observed in, when observation intervals are given (our rule: at least half the bin)', () => {
+    const t = Float64Array.of(0, 0.5, 3.2, 7.999, 10);
+    // observed [0, 4.5) and [7.2, 10]: bins 0-3 fully, bin 4 half (counts), bin 7 0.8 (counts), bins 8-9:
+    // eligible 0,1,2,3,4,7,8,9 = 8 bins; occupied among them: 0, 3, 7, 9 -> 4 / 8
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(0, 4.5, 7.2, 10))).toBe(0.5);
+    // a bin 0.4 inside observed time does not count: [0, 4.4) -> bins 0-3 eligible; occupied 0 and 3 -> 2 / 4
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(0, 4.4))).toBe(0.5);
+    // observed over the whole span = no intervals given
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(0, 10))).toBe(presenceRatio(t, 0, 10, 10));
+    // never observed inside the span: undefined
+    expect(presenceRatio(t, 0, 10, 10, Float64Array.of(20, 30))).toBeNaN();
+  });
 });
 
 describe('autocorrelogram', () => {
@@ -138,7 +151,7 @@ describe('rateDrift (our definition: CV and slope of segment rates)', () => {
     [10, 20, 30, 40].forEach((c, s) => {
       for (let i = 0; i < c; i++) times.push(s * 10 + (i + 0.5) * (10 / c));
     });
-    const d = rateDrift(Float64Array.from(times), 0, 40, 4);
+    const d = rateDrift(Float64Array.from(times), driftSegments(0, 40, 4));
     expect(Array.from(d.ratesHz)).toEqual([1, 2, 3, 4]);
     // mean 2.5, population SD sqrt(1.25) -> CV = 0.4472135955
     close(d.cv, Math.sqrt(1.25) / 2.5, 1e-12);
@@ -150,21 +163,21 @@ describe('rateDrift (our definition: CV and slope of segment rates)', () => {
     const base = Array.from({ length: 40 }, (_, k) => k + 0.5);
     const burst = Array.from({ length: 50 }, (_, k) => 35 + k * 0.001);
     const t = Float64Array.from([...base, ...burst].sort((a, b) => a - b));
-    expect(rateDrift(t, 0, 40, 4).ratesHz[3]).toBeCloseTo(6, 12); // (10 + 50) / 10 s without exclusion
+    expect(rateDrift(t, driftSegments(0, 40, 4)).ratesHz[3]).toBeCloseTo(6, 12); // (10 + 50) / 10 s without exclusion
     // exclude [35, 35.1) (the burst) and [10, 15) (half of segment 2, holding 5 regular spikes)
-    const d = rateDrift(t, 0, 40, 4, { startS: Float64Array.of(10, 35), stopS: Float64Array.of(15, 35.1) });
+    const d = rateDrift(t, driftSegments(0, 40, 4, { startS: Float64Array.of(10, 35), stopS: Float64Array.of(15, 35.1) }));
     // segment 2: 5 spikes in 5 s left = 1 Hz; segment 4: 10 spikes in 9.9 s = 1.0101 Hz
     expect(d.ratesHz[1]).toBeCloseTo(1, 12);
     expect(d.ratesHz[3]).toBeCloseTo(10 / 9.9, 12);
     expect(d.cv).toBeLessThan(0.005);
     // a segment left with no time has no rate and is left out
-    const all = rateDrift(t, 0, 40, 4, { startS: Float64Array.of(0), stopS: Float64Array.of(10) });
+    const all = rateDrift(t, driftSegments(0, 40, 4, { startS: Float64Array.of(0), stopS: Float64Array.of(10) }));
     expect(all.ratesHz[0]).toBeNaN();
     expect(Number.isFinite(all.cv)).toBe(true);
   });
   it('is NaN for an empty span or a silent unit', () => {
-    expect(rateDrift(Float64Array.of(1), 0, 0, 4).cv).toBeNaN();
-    const silent = rateDrift(new Float64Array(0), 0, 10, 4);
+    expect(rateDrift(Float64Array.of(1), driftSegments(0, 0, 4)).cv).toBeNaN();
+    const silent = rateDrift(new Float64Array(0), driftSegments(0, 10, 4));
     expect(silent.cv).toBeNaN();
     expect(silent.slopeHzPerMin).toBe(0);
   });

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -74,5 +75,26 @@ describe('the workbench engine (what the analysis worker runs)', () => {
     expect(curated[1][header.indexOf('unit')]).toBe('1');
     expect(curated[1][header.indexOf('included')]).toBe('no');
     expect(curated[3][header.indexOf('included')]).toBe('yes');
+  });
+
+  it('writes the run.json of the current analysis, the record `tagbench export` writes (hashes checked with node:crypto)', async () => {
+    const engine = new WorkbenchEngine();
+    await engine.open(files(TINY), 'tiny', {}, () => undefined);
+    await engine.analyse({ ramp: { binS: 0.05 } }, () => undefined);
+    const at = '2026-01-01T00:00:00.000Z';
+    const curation = { units: { '3': { labels: { tag: { value: 'tagged', by: 't', at } } }, '99': { labels: {}, include: { value: false, by: 't', at } } } };
+    const run = JSON.parse(await engine.runRecordText({ curation, finishedAt: at, toolVersion: '9.9.9', source: 'tiny-session', sessionFile: 'tagbench-session.json', notices: [], outputs: ['units_curated.csv'] }));
+    expect(run).toMatchObject({ tool: 'tagbench', version: '9.9.9', command: 'workbench export', finishedAt: at, sessionFile: 'tagbench-session.json', outputs: ['units_curated.csv'] });
+    expect(run.curation).toEqual({ unitsCurated: 2, labels: 1, excluded: 1, orphans: ['99'] });
+    expect(run.parameters.ramp.binS).toBe(0.05);
+    expect(run.parameterFiles.at(-1)).toBe('Analysis settings');
+    expect(run.recording).toMatchObject({ units: 8, spikes: 6352, pulses: 25, trials: 13 });
+    for (const f of readdirSync(TINY)) {
+      const rec = run.inputs.find((x: { file: string }) => x.file === f);
+      if (rec) expect(rec.sha256).toBe(createHash('sha256').update(readFileSync(join(TINY, f))).digest('hex'));
+    }
+    expect(run.inputs.length).toBeGreaterThan(2);
+    expect(run.columns.map((c: { name: string }) => c.name)).toContain('final_tag');
+    expect(Object.keys(run.steps)).toEqual(['basic', 'light', 'ramp', 'jump', 'cluster', 'quality']);
   });
 });

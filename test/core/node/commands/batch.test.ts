@@ -10,7 +10,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { batchCommand } from '../../../../core/node/commands/batch';
-import { writeFolderAtomic } from '../../../../core/node/write-folder-atomic';
+import { writeOutputFolder } from '../../../../core/node/write-output-folder';
 import { defaultScenario } from '../../../../core/sim/default-scenario';
 import { sessionFiles } from '../../../../core/sim/session-files';
 import { simulateSession } from '../../../../core/sim/simulate-session';
@@ -32,7 +32,8 @@ function makeSession(path: string, seed: number, form: 'csv' | 'npy', units: num
       unitSpec({ id: String(i + 1), rateHz: 3 + i, ...(i === 0 ? { light: { kind: 'direct', latencyMs: 3, jitterMs: 0.5, reliability: 0.9, followHalfHz: 30, decayPerPulse: 0.8, latencyGrowthMs: 1, extraSpikes: 0 } } : {}) }),
     ),
   });
-  writeFolderAtomic(path, sessionFiles(simulateSession(spec), { spikes: form }));
+  const files = sessionFiles(simulateSession(spec), { spikes: form });
+  writeOutputFolder(path, Object.fromEntries(files.map((f) => [f.name, f.data])), { replace: 'any' });
 }
 
 async function batch(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {

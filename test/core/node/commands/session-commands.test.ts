@@ -1,4 +1,4 @@
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
@@ -65,6 +65,33 @@ describe('curate, export and report on a simulated session (demo scenario)', () 
     );
   });
 
+  it('undoes the last save from the command line, and redoes it with a second --undo', async () => {
+    const deps = testDeps(rec);
+    const curate = makeCurateCommand(deps);
+    const sf = join(root, 'undo.session.json');
+    await expect(curate.run([sf, '--undo'], captureIo())).rejects.toThrow(/session file not found/);
+    expect(await curate.run([sf, '--create', data], captureIo())).toBe(0);
+    await expect(curate.run([sf, '--undo'], captureIo())).rejects.toThrow(/nothing to undo/);
+    expect(await curate.run([sf, '--unit', '2', '--label', 'borderline'], captureIo())).toBe(0);
+    expect(await curate.run([sf, '--unit', '4', '--exclude'], captureIo())).toBe(0);
+    const state = () => {
+      const u = loadSessionFile(sf).session.curation.units;
+      return { two: u['2']?.labels.tag?.value ?? null, four: u['4']?.include?.value ?? null };
+    };
+    expect(state()).toEqual({ two: 'borderline', four: false });
+    const io = captureIo();
+    expect(await curate.run([sf, '--undo'], io)).toBe(0);
+    expect(io.out.join('')).toMatch(/^Restored the version of undo\.session\.json saved at .* \(1 curated unit\(s\); the undone version, 2 unit\(s\), is now undo\.session\.json\.bak: run --undo again to redo\)\.\n$/);
+    expect(state()).toEqual({ two: 'borderline', four: null });
+    expect(await curate.run([sf, '--undo'], captureIo())).toBe(0);
+    expect(state()).toEqual({ two: 'borderline', four: false });
+    // a broken session file is never "undone" over: the backup is loaded and the undo refused
+    const broken = readFileSync(sf, 'utf8').slice(0, 50);
+    writeFileSync(sf, broken);
+    await expect(curate.run([sf, '--undo'], captureIo())).rejects.toThrow(/its backup was loaded, so there is no later version to undo/);
+    expect(readFileSync(sf, 'utf8')).toBe(broken);
+  });
+
   it('exports CSV, TSV and JSON with computed and final verdicts, and run.json; the files read back equal the table', async () => {
     const deps = testDeps(rec);
     const sf = join(root, 'demo.session.json');
@@ -91,10 +118,26 @@ describe('curate, export and report on a simulated session (demo scenario)', () 
     expect(v(csv, 'quality')[(v(csv, 'unit') as string[]).indexOf('7')]).toBe('pass'); // computed stays
     expect(v(csv, 'final_quality')[(v(csv, 'unit') as string[]).indexOf('7')]).toBe('review');
     const run = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
-    expect(run).toMatchObject({ tool: { name: 'tagbench', version: '0.1.0-test' }, command: 'export', createdAt: '2026-03-01T14:05:00.000Z', curation: { unitsCurated: 3, labels: 2, excluded: 1, orphans: [] }, notices: [] });
+    // the same run.json fields as `tagbench run` writes (one builder: core/export/build-run-record.ts)
+    expect(run).toMatchObject({ tool: 'tagbench', version: '0.1.0-test', command: 'export', finishedAt: '2026-03-01T14:05:00.000Z', curation: { unitsCurated: 3, labels: 2, excluded: 1, orphans: [] }, notices: [], outputs: ['units.csv', 'units.tsv', 'units.json'] });
     expect(run.inputs.map((i: { file: string }) => i.file)).toEqual(['pulses.csv', 'spikes.csv']);
-    expect(run.columns).toEqual(names);
-    expect(run.summaries.quality.counts).toBeDefined();
+    expect(run.columns.map((c: { name: string }) => c.name)).toEqual(names);
+    expect(run.steps.quality.counts).toBeDefined();
+    expect(run.recording.units).toBe(opened.table.rowCount);
+  });
+
+  it('exports again into its own earlier output folder (recognised by its run.json), and refuses a foreign folder', async () => {
+    const deps = testDeps(rec);
+    const sf = join(root, 'demo.session.json');
+    const out = join(root, 'export-twice');
+    expect(await makeExportCommand(deps).run([sf, '--out', out, '--format', 'csv'], captureIo())).toBe(0);
+    expect(await makeExportCommand(deps).run([sf, '--out', out, '--format', 'tsv'], captureIo())).toBe(0);
+    expect(readdirSync(out).sort()).toEqual(['run.json', 'units.tsv']);
+    const foreign = join(root, 'foreign');
+    mkdirSync(foreign);
+    writeFileSync(join(foreign, 'notes.txt'), 'keep me');
+    await expect(makeExportCommand(deps).run([sf, '--out', foreign], captureIo())).rejects.toThrow(/is not an earlier tagbench output/);
+    expect(readFileSync(join(foreign, 'notes.txt'), 'utf8')).toBe('keep me');
   });
 
   it('refuses a session whose inputs changed, naming the file, unless told to go on', async () => {

@@ -207,6 +207,12 @@ describe('NWB through loadSession and the CLI', () => {
       expect([...new Set(r.recording.events.label)]).toEqual(['water']);
       expect(r.recording.span).toEqual([0, 150]);
       expect(r.recording.spanSource).toBe('manifest');
+      // both files are inputs, hashed (reference: node:crypto over the bytes on disk)
+      const sha = (f: string) => createHash('sha256').update(readFileSync(join(dir, f))).digest('hex');
+      expect(r.inputs).toEqual([
+        { file: 'session.json', bytes: readFileSync(join(dir, 'session.json')).length, sha256: sha('session.json') },
+        { file: 'rec.nwb', bytes: readFileSync(join(dir, 'rec.nwb')).length, sha256: sha('rec.nwb') },
+      ]);
       writeFileSync(join(dir, 'session.json'), JSON.stringify({ nwb: { file: 'rec.nwb', pulse: false } }));
       await expect(loadSession(dir)).rejects.toThrow(/session\.json, column "nwb\.pulse": unknown key/);
     } finally {
