@@ -139,6 +139,34 @@ describe('createDelimitedParser', () => {
     expect(t.rowOf(n - 1)).toBe(n + 1);
   });
 
+  it('hands columns over as row blocks equal to the joined columns, for every chunking', () => {
+    // the import path of the spike table (pieces: true) against the general path (joined arrays)
+    const PIECE_COLS: ColumnSpec[] = SPIKE_COLS.map((c) => ({ ...c, pieces: true }));
+    const flat = (t: DelimitedTable) => {
+      const u = t.pieces.get('unit')!;
+      const tm = t.pieces.get('time')!.numbers!;
+      expect(u.codes!.map((b) => b.length)).toEqual(tm.map((b) => b.length));
+      return { units: u.codes!.flatMap((b) => Array.from(b, (k) => u.dictionary![k])), times: tm.flatMap((b) => Array.from(b)) };
+    };
+    const n = 140_000; // three blocks of 65,536 rows, the last partial
+    const parts = ['\uFEFFunit,time\r\n'];
+    for (let i = 0; i < n; i++) parts.push(i % 1000 === 0 ? `"${i % 13}",${i}.25\r\n\r\n` : `${i % 13},${i * 3}e-3\r\n`);
+    const bytes = enc(parts.join(''));
+    const whole = parse(bytes);
+    for (const chunk of [0, 1 << 20, 65_537, 4093]) {
+      const t = parse(bytes, PIECE_COLS, chunk);
+      expect(t.numbers.size + t.codes.size).toBe(0);
+      expect(flat(t)).toEqual({ units: units(whole), times: times(whole) });
+      expect(t.rowOf(n - 1)).toBe(whole.rowOf(n - 1));
+    }
+    // small files, every chunking: CRLF, quotes, BOM, a chunk boundary inside a number
+    const text = '\uFEFF"unit",time\r\n"7",1.000000000000001\r\n\r\n8,2.5e-3\r\n"7",  3\r\n';
+    const small = parse(text);
+    for (let k = 1; k <= 12; k++) expect(flat(parse(text, PIECE_COLS, k))).toEqual({ units: units(small), times: times(small) });
+    const empty = parse('unit,time\n', PIECE_COLS);
+    expect(empty.pieces.get('time')!.numbers).toEqual([]);
+  });
+
   it('header-only file gives zero rows', () => {
     expect(parse('unit,time\n').rowCount).toBe(0);
   });
