@@ -10,6 +10,9 @@
  * (units[k].length === times[k].length; an error otherwise, a reader bug).
  */
 
+/** Unit codes of a piece (2 bytes each while there are fewer than 65,536 ids). */
+export type UnitCodes = Int32Array | Uint16Array;
+
 /** Spikes in file order, in pieces; every call of forEach sees the same pieces. */
 export interface SpikePieces {
   /** Number of spikes (records) in all pieces. */
@@ -21,19 +24,19 @@ export interface SpikePieces {
    * what you keep). `last` tells the source this is the final visit, so it may
    * drop each piece once visited. Readers' input errors may be thrown.
    */
-  forEach(visit: (unit: Int32Array, time: Float64Array, first: number) => void, last?: boolean): void;
+  forEach(visit: (unit: UnitCodes, time: Float64Array, first: number) => void, last?: boolean): void;
   /** The same pieces' unit codes alone (cheaper: times are not read). */
-  forEachUnit(visit: (unit: Int32Array, first: number) => void): void;
+  forEachUnit(visit: (unit: UnitCodes, first: number) => void): void;
 }
 
-export function spikePieces(units: Int32Array[], times: Float64Array[]): SpikePieces {
+export function spikePieces(units: UnitCodes[], times: Float64Array[]): SpikePieces {
   if (units.length !== times.length) throw new Error('spikePieces: unit and time lists differ in length');
   let length = 0;
   for (let k = 0; k < units.length; k++) {
     if (units[k].length !== times[k].length) throw new Error(`spikePieces: piece ${k} has ${units[k].length} unit codes but ${times[k].length} times`);
     length += times[k].length;
   }
-  const u: (Int32Array | null)[] = units.slice();
+  const u: (UnitCodes | null)[] = units.slice();
   const t: (Float64Array | null)[] = times.slice();
   return {
     length,

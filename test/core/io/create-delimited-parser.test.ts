@@ -167,6 +167,19 @@ describe('createDelimitedParser', () => {
     expect(empty.pieces.get('time')!.numbers).toEqual([]);
   });
 
+  it('keeps codes exact past 65,536 distinct ids (2-byte blocks widen to 4 bytes)', () => {
+    const n = 150_000; // ids 0..69,999 then repeats; the 65,537th id arrives inside the second block
+    const parts = ['unit,time\n'];
+    for (let i = 0; i < n; i++) parts.push(`${i < 70_000 ? i : i % 977},${i}\n`);
+    const bytes = enc(parts.join(''));
+    const PIECE_COLS: ColumnSpec[] = SPIKE_COLS.map((c) => ({ ...c, pieces: true }));
+    const want = Array.from({ length: n }, (_, i) => String(i < 70_000 ? i : i % 977));
+    expect(units(parse(bytes, SPIKE_COLS, 100_003))).toEqual(want);
+    const p = parse(bytes, PIECE_COLS, 100_003).pieces.get('unit')!;
+    expect(p.codes!.map((b) => b.constructor.name)).toEqual(['Uint16Array', 'Int32Array', 'Int32Array']);
+    expect(p.codes!.flatMap((b) => Array.from(b, (k) => p.dictionary![k]))).toEqual(want);
+  });
+
   it('header-only file gives zero rows', () => {
     expect(parse('unit,time\n').rowCount).toBe(0);
   });
