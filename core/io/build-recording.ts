@@ -195,6 +195,12 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
       all[at[c]++] = x;
     }
   }, true);
+  for (let c = 0; c < nCodes; c++) {
+    if (at[c] !== codeStart[c + 1]) {
+      // the two visits disagreed: the reader saw other data the second time
+      throw new InputError({ file: s.file, problem: 'the spike table changed while it was being read', fix: 'wait until the files are completely written, then import again' });
+    }
+  }
   if (t.pulses) {
     checkTimes(t.pulses, t.pulses.columns.onset, t.pulses.onset, minTime);
     if (t.pulses.duration) checkOptional(t.pulses, t.pulses.columns.duration!, t.pulses.duration, 'a duration');

@@ -64,6 +64,15 @@ describe('buildRecording from pieces', () => {
     );
   });
 
+  it('a reader whose second visit disagrees with the first (a file changed while read) is an input error', () => {
+    const unitsFirst = Int32Array.from([0, 0, 1]);
+    const unitsLater = Int32Array.from([0, 1, 1]);
+    const time = Float64Array.from([1, 2, 3]);
+    const pieces = { length: 3, forEachUnit: (v: (u: Int32Array, f: number) => void) => v(unitsFirst, 0), forEach: (v: (u: Int32Array, t: Float64Array, f: number) => void) => v(unitsLater, time, 0) };
+    const cols = { file: 'spikes.npy', columns: { unit: 'units.npy', time: 'spikes.npy' }, unitIds: ['1', '2'] };
+    expect(() => buildRecording({ spikes: { ...cols, pieces }, toleranceS: 1 })).toThrow('spikes.npy: the spike table changed while it was being read.');
+  });
+
   it('names the first bad row across pieces, and units listed without spikes get empty trains', () => {
     const unit = Int32Array.from([0, 1, 0, 1, 0]);
     const time = Float64Array.from([1, 2, 3, -4, 5]);
