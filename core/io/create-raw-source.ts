@@ -14,7 +14,7 @@ import type { RandomAccessFile } from './session-source';
 
 export function createRawSource(
   f: RandomAccessFile,
-  spec: { file: string; channelCount: number; sampleRateHz: number; gainUvPerBit: number; startS: number },
+  spec: { file: string; channelCount: number; sampleRateHz: number; gainUvPerBit: number; startS: number; channelIds?: readonly string[] },
 ): RawSource {
   const frameBytes = 2 * spec.channelCount;
   if (f.size === 0) throw new InputError({ file: spec.file, problem: 'the raw voltage file is empty' });
@@ -34,6 +34,7 @@ export function createRawSource(
     gainUvPerBit: spec.gainUvPerBit,
     frameCount,
     startS: spec.startS,
+    ...(spec.channelIds ? { channelIds: spec.channelIds } : {}),
     readFrames(startFrame: number, count: number): Int16Array {
       const a = Math.max(0, Math.floor(startFrame));
       const b = Math.min(frameCount, Math.floor(startFrame) + Math.max(0, Math.floor(count)));

@@ -50,6 +50,8 @@ export interface SessionManifest {
     readonly sampleRateHz: number;
     readonly gainUvPerBit: number;
     readonly startS: number;
+    /** Probe channel id of each column of the file, when given (raw.channel_map). */
+    readonly channelIds?: readonly string[];
   };
   /** Settings for the NWB reader, untouched. */
   readonly nwb?: unknown;
@@ -108,6 +110,22 @@ export function parseManifest(text: string, file = 'session.json'): SessionManif
   const fin = (v: unknown, key: string): number => {
     if (typeof v !== 'number' || !Number.isFinite(v)) err(key, 'expected a finite number', v);
     return v as number;
+  };
+  /** raw.channel_map: one probe channel id (number or text) per column of the raw file, all different. */
+  const channelMap = (v: unknown, count: number): string[] => {
+    const key = 'raw.channel_map';
+    if (!Array.isArray(v)) err(key, 'expected a list of channel ids, one per column of the raw file', v);
+    const ids = (v as unknown[]).map((x, i) => {
+      if (!((typeof x === 'number' && Number.isInteger(x)) || (typeof x === 'string' && x !== ''))) err(`${key}[${i}]`, 'expected a whole number or a non-empty text', x);
+      return String(x);
+    });
+    if (ids.length !== count) err(key, `lists ${ids.length} channel ids but raw.channel_count is ${count}`, undefined, 'give one id per column of the raw file, in file order');
+    const seen = new Set<string>();
+    ids.forEach((id, i) => {
+      if (seen.has(id)) err(`${key}[${i}]`, 'repeats a channel id', id);
+      seen.add(id);
+    });
+    return ids;
   };
   const unit = (v: unknown, key: string): TimeUnit => {
     if (typeof v !== 'string' || !TIME_UNITS.includes(v)) err(key, 'expected "s", "ms" or "samples"', v);
@@ -186,7 +204,7 @@ export function parseManifest(text: string, file = 'session.json'): SessionManif
   }
   if (root.raw !== undefined) {
     const o = obj(root.raw, 'raw');
-    only(o, 'raw', ['file', 'channel_count', 'sample_rate', 'gain_uv_per_bit', 'start_s']);
+    only(o, 'raw', ['file', 'channel_count', 'sample_rate', 'gain_uv_per_bit', 'start_s', 'channel_map']);
     for (const k of ['file', 'channel_count', 'sample_rate', 'gain_uv_per_bit']) {
       if (o[k] === undefined) err(`raw.${k}`, 'is missing', undefined, 'the raw section needs file, channel_count, sample_rate (Hz) and gain_uv_per_bit');
     }
@@ -198,6 +216,7 @@ export function parseManifest(text: string, file = 'session.json'): SessionManif
       sampleRateHz: pos(o.sample_rate, 'raw.sample_rate'),
       gainUvPerBit: pos(o.gain_uv_per_bit, 'raw.gain_uv_per_bit'),
       startS: o.start_s === undefined ? 0 : fin(o.start_s, 'raw.start_s'),
+      ...(o.channel_map !== undefined ? { channelIds: channelMap(o.channel_map, ch as number) } : {}),
     };
   }
   if (root.nwb !== undefined) m.nwb = root.nwb;

@@ -1,6 +1,6 @@
 import type { Parameters } from '../defaults';
 import { InputError } from '../errors';
-import type { Unit, Warning } from '../model/types';
+import type { RawSource, Unit, Warning } from '../model/types';
 import type { AnalysisStep } from '../pipeline/types';
 import type { Column } from '../table/types';
 import { artefactFlags } from './artefact-flags';
@@ -30,10 +30,18 @@ function checkParameters(p: Parameters['light']): void {
   }
 }
 
-/** The unit's channel from its metadata (0-based raw channel), or -1. */
-function metaChannel(u: Unit): number {
+/**
+ * The raw-file column of the unit's channel (metadata `channel`): looked up in
+ * the raw file's channel map when session.json gives one, else read as a
+ * 0-based column index. -1 without a channel, -2 when it names no column.
+ */
+function metaChannel(u: Unit, raw: RawSource): number {
   const v = u.meta.channel;
   if (v === undefined || v === '') return -1;
+  if (raw.channelIds) {
+    const i = raw.channelIds.indexOf(String(v));
+    return i >= 0 ? i : -2;
+  }
   const c = Number(v);
   return Number.isInteger(c) ? c : -2;
 }
@@ -100,7 +108,7 @@ export const lightStep: AnalysisStep = {
         const free = lightFreeSpikes(unit.spikeTimes, sch.lightIntervals);
         let wr = NaN;
         if (recording.raw) {
-          let ch = metaChannel(unit);
+          let ch = metaChannel(unit, recording.raw);
           if (ch < -1 || ch >= recording.raw.channelCount) {
             badChannels++;
             ch = -1;
@@ -164,7 +172,7 @@ export const lightStep: AnalysisStep = {
         count: sch.n - sch.saltPulses.length,
       });
     }
-    if (badChannels) warnings.push({ code: 'waveform-channel-invalid', message: 'Unit channel metadata not a channel of the raw file; the largest-amplitude channel was used instead.', count: badChannels });
+    if (badChannels) warnings.push({ code: 'waveform-channel-invalid', message: `Unit channel metadata not a channel of the raw file (${recording.raw?.channelIds ? 'not in raw.channel_map' : 'read as a 0-based column; give raw.channel_map in session.json when the file holds other channels'}); the largest-amplitude channel was used instead.`, count: badChannels });
     if (waveformProblems) warnings.push({ code: 'waveform-match-missing', message: 'Some units had too few evoked or spontaneous spikes (or a flat waveform) for a waveform match; their tag_waveform_r is empty.', count: waveformProblems });
 
     const ms = (name: string, values: Float64Array, description: string, digits = 4): Column => ({ name, kind: 'number', values, digits, description });
@@ -185,7 +193,7 @@ export const lightStep: AnalysisStep = {
       ms('tag_evoked_minus_baseline_hz', evokedMinus, 'Rate in the test window minus the baseline rate, Hz'),
       ms('tag_baseline_reliability', baseRel, 'Share of baseline windows (same length as the test window) with >= 1 spike'),
       ms('tag_waveform_r', waveR, 'Pearson r of light-evoked and spontaneous mean waveforms cut from the raw file (empty without raw data)'),
-      ms('tag_waveform_channel', waveCh, 'Raw channel (0-based) the waveform comparison starts from'),
+      ms('tag_waveform_channel', waveCh, 'Column of the raw file (0-based, in file order) the waveform comparison starts from'),
       { name: 'tag_artefact', kind: 'string', values: artefact, description: 'Artefact suspicions: zero-jitter, too-early, offset-locked, waveform-mismatch (";"-separated; empty = none)' },
       ms('tag_false_rate', falseRate, 'Expected share of light-insensitive units like this one (rate, ISI CV) that the rule calls tagged on this pulse schedule (simulated)'),
       ms('tag_min_detectable_reliability', minRel, 'Smallest reliability of a direct answer the rule finds with the set power on this pulse schedule (simulated; empty = not even 1)'),

@@ -107,6 +107,12 @@ export interface RawSource {
   readonly frameCount: number;
   /** Time of frame 0 on the recording clock, s. */
   readonly startS: number;
+  /**
+   * The probe channel id stored in each column of the file (session.json
+   * raw.channel_map), when the file's columns are not the probe's channels
+   * 0, 1, 2, ... in order; units' `channel` metadata names these ids.
+   */
+  readonly channelIds?: readonly string[];
   /** Frames [startFrame, startFrame + frameCount) interleaved by channel; clipped at the file's ends. */
   readFrames(startFrame: number, frameCount: number): Int16Array;
 }

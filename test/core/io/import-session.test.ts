@@ -113,6 +113,18 @@ describe('importSession: formats and manifest', () => {
     expect(Array.from(raw.readFrames(3, 10))).toEqual([32767, -32768]);
     expect(raw.readFrames(9, 1).length).toBe(0);
     expect(r.inputs.map((i) => i.file)).toContain('raw.bin');
+    expect(raw.channelIds).toBeUndefined();
+  });
+
+  it('reads the raw file channel map and refuses a wrong one, naming the key', async () => {
+    const frames = new Uint8Array(new Int16Array(6).buffer); // 2 frames x 3 channels
+    const manifest = (map: unknown) => JSON.stringify({ raw: { file: 'raw.bin', channel_count: 3, sample_rate: 30000, gain_uv_per_bit: 1, channel_map: map } });
+    const open = (map: unknown) => importSession(memorySource({ 'spikes.csv': SPIKES, 'raw.bin': frames, 'session.json': manifest(map) }));
+    expect((await open([17, 'B2', 3])).recording.raw!.channelIds).toEqual(['17', 'B2', '3']);
+    await expect(open([1, 2])).rejects.toThrow(/session\.json, column "raw\.channel_map": lists 2 channel ids but raw\.channel_count is 3/);
+    await expect(open([1, 2, 1])).rejects.toThrow(/column "raw\.channel_map\[2\]": repeats a channel id \(value "1"\)/);
+    await expect(open([1, 2.5, 3])).rejects.toThrow(/column "raw\.channel_map\[1\]": expected a whole number or a non-empty text/);
+    await expect(open('0-2')).rejects.toThrow(/column "raw\.channel_map": expected a list of channel ids/);
   });
 
   it('warns about columns it does not use', async () => {
