@@ -6,6 +6,7 @@
  * Usage: node --import tsx bench/import-child.ts <session-dir>
  */
 import { loadSession } from '../core/node/load-session';
+import { peakRssBytes } from './peak-rss';
 
 const dir = process.argv[2];
 const t0 = performance.now();
@@ -16,4 +17,4 @@ const c = process.cpuUsage(c0);
 let spikes = 0;
 for (const u of r.recording.units) spikes += u.spikeTimes.length;
 const ru = process.resourceUsage();
-console.log(JSON.stringify({ wallMs, cpuMs: (c.user + c.system) / 1000, maxRssBytes: ru.maxRSS * 1024, minorFaults: ru.minorPageFault, units: r.recording.units.length, spikes }));
+console.log(JSON.stringify({ wallMs, cpuMs: (c.user + c.system) / 1000, maxRssBytes: peakRssBytes(), minorFaults: ru.minorPageFault, units: r.recording.units.length, spikes }));
