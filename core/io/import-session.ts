@@ -157,8 +157,9 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     else if (!names.has(unitsFile)) {
       throw new InputError({ file: spikeFile, problem: 'spike times in .npy form need units.npy beside them (the unit of each spike)', fix: 'save units.npy, or name it in session.json as "spikes": {"units_file": ...}' });
     }
-    // Both arrays are read piece by piece by offset (never whole, never copied
-    // in full): hashed in one first pass, grouped by buildRecording in two more.
+    // Both arrays are read piece by piece by offset, never whole: units.npy once
+    // in full first (hashed, ids coded), then buildRecording visits the pieces
+    // twice (unit codes alone, then both; spikes.npy is hashed on that visit).
     const tRec = { file: spikeFile, bytes: 0, sha256: '' };
     const uRec = { file: unitsFile, bytes: 0, sha256: '' };
     inputs.push(tRec, uRec);
