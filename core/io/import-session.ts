@@ -9,7 +9,8 @@
  * The same code runs in Node (CLI, Electron main) and in the browser.
  * Errors are InputErrors naming file, row and column; nothing is written.
  * Delimited files stream chunk by chunk, so a 20-million-row spike table needs
- * its parsed columns (12 bytes per spike) plus one chunk, not its text.
+ * its parsed row blocks (10 bytes per spike while there are fewer than 65,536
+ * unit ids) plus one chunk, not its text; .npy spikes are read piece by piece.
  */
 import { DEFAULTS, type Parameters } from '../defaults';
 import { InputError } from '../errors';
