@@ -13,8 +13,9 @@
  * full); digestHex() waits for the worker's digest. So small files never wait
  * for the worker, and the input bytes are hashed exactly as read.
  * Several hashes may be open at once. The worker is unref'd and ended by
- * close(); a worker failure (or no answer within 60 s) is an Error (a bug, not
- * an input problem).
+ * close(); where no worker can be started, hashes stay on the calling thread.
+ * A worker failure (or no answer within 60 s) is an Error (a bug, not an
+ * input problem).
  */
 import { createHash } from 'node:crypto';
 import { Worker } from 'node:worker_threads';
@@ -84,6 +85,19 @@ export function createWorkerSha256(): WorkerSha256 {
   let digests = 0;
   let nextId = 1;
 
+  let unavailable = false;
+  /** Starts the worker once; false when this host cannot run one (then every hash stays inline). */
+  const ready = (): boolean => {
+    if (worker) return true;
+    if (unavailable) return false;
+    try {
+      start();
+      return true;
+    } catch {
+      unavailable = true;
+      return false;
+    }
+  };
   const start = () => {
     const sab = (n: number) => new SharedArrayBuffer(n);
     const c = sab(4 * 4);
@@ -108,7 +122,6 @@ export function createWorkerSha256(): WorkerSha256 {
   };
   /** Claims the next slot (waiting while all are in use) and publishes it after fill(). */
   const send = (id: number, kind: number, bytes: Uint8Array | null) => {
-    if (!worker) start();
     for (;;) {
       const tail = Atomics.load(control, TAIL);
       if (head - tail < SLOTS) break;
@@ -142,6 +155,13 @@ export function createWorkerSha256(): WorkerSha256 {
               inline.update(bytes);
               pending.push(bytes.slice());
               seen += bytes.length;
+              return;
+            }
+            if (!ready()) {
+              // no worker on this host: hash on this thread
+              inline.update(bytes);
+              pending = [];
+              seen = Infinity;
               return;
             }
             inline = null; // switch: the worker hashes from the first byte
