@@ -10,7 +10,7 @@
  * In the folder case `inputs` lists session.json first, then the NWB file.
  *
  * Hashing: unless options.createHash is given, every input is hashed with
- * node:crypto on a second thread while it is read (createWorkerSha256).
+ * node:crypto (nodeSha256) from the bytes the importer reads, as it reads them.
  *
  * Errors: InputError for a missing path, a file that is neither a folder nor
  * .nwb, and everything the importers report.
@@ -23,20 +23,10 @@ import type { ImportResult } from '../io/import-result';
 import { parseManifest } from '../io/parse-manifest';
 import { createFsSessionSource } from './create-fs-session-source';
 import { loadNwbSession } from './load-nwb-session';
-import { createWorkerSha256 } from './create-worker-sha256';
+import { nodeSha256 } from './node-sha256';
 
 export async function loadSession(path: string, options: ImportOptions = {}): Promise<ImportResult> {
-  if (options.createHash) return loadWith(path, options);
-  // input files are hashed on a second thread while they are parsed (node:crypto either way)
-  const hasher = createWorkerSha256();
-  try {
-    return await loadWith(path, { ...options, createHash: hasher.createHash });
-  } finally {
-    hasher.close();
-  }
-}
-
-async function loadWith(path: string, opts: ImportOptions): Promise<ImportResult> {
+  const opts: ImportOptions = { createHash: nodeSha256, ...options };
   if (!existsSync(path)) {
     throw new InputError({ file: path, problem: 'no such file or folder', fix: 'give a session folder (spikes.csv, pulses.csv, ...) or an .nwb file' });
   }
@@ -62,7 +52,7 @@ async function loadWith(path: string, opts: ImportOptions): Promise<ImportResult
       // session.json chose the file and may set parameters: it is an input too (size + SHA-256), and the
       // NWB file is named as session.json names it (relative to the folder)
       const bytes = readFileSync(manifestPath);
-      const h = opts.createHash!();
+      const h = (opts.createHash ?? nodeSha256)();
       h.update(bytes);
       return { ...r, inputs: [{ file: MANIFEST_FILE, bytes: bytes.length, sha256: h.digestHex() }, ...r.inputs.map((i) => ({ ...i, file: sec.file as string }))] };
     }
