@@ -221,6 +221,11 @@ describe('npySpikePieces: errors name the file and the 0-based element', () => {
 });
 
 describe('importSession with .npy spikes on hosts without random access', () => {
+  it('empty arrays: the same message as an empty spike table', async () => {
+    const files = { 'spikes.npy': npyBytes(new Float64Array(0)), 'units.npy': npyBytes(new Int32Array(0)) };
+    await expect(importSession(memorySource(files))).rejects.toThrow('spikes.npy: the spike table has no rows. Export at least one spike (one row per spike: unit, time).');
+  });
+
   it('reads the whole files instead and gives the same recording and hashes', async () => {
     const rnd = lcg(3);
     const t = Float64Array.from({ length: 500 }, () => rnd() * 50);
