@@ -45,13 +45,15 @@ function makeSession(dir: string): number {
   }
   writeFileSync(join(dir, 'spikes.npy'), encodeNpy(Float64Array.from(times)));
   writeFileSync(join(dir, 'units.npy'), encodeNpy(Int32Array.from(ids)));
+  // The light block: 1 Hz pulses over the last 5 minutes (the last half of a shorter session).
+  const lightS = Math.min(300, durationS / 2);
   const pulses = ['onset,duration'];
-  for (let t = durationS - 300; t < durationS - 1; t += 1) pulses.push(`${t.toFixed(4)},0.005`);
+  for (let t = durationS - lightS; t < durationS - 1; t += 1) pulses.push(`${t.toFixed(4)},0.005`);
   writeFileSync(join(dir, 'pulses.csv'), `${pulses.join('\n')}\n`);
   const events = ['time,event,trial'];
   const trials = ['trial,start,stop,condition'];
   let k = 1;
-  for (let t = 2; t + 6 < durationS - 300; t += 6, k++) {
+  for (let t = 2; t + 6 < durationS - lightS; t += 6, k++) {
     trials.push(`${k},${t},${t + 5},${k % 4 ? 'standard' : 'probe'}`);
     events.push(`${t + 4},reward,${k}`);
   }
@@ -73,26 +75,61 @@ async function openToTable(page: Page, url: string): Promise<number> {
   return Math.max(opened, Date.now() - t0);
 }
 
-async function unitSwitches(page: Page): Promise<number[]> {
+/**
+ * One switch, run inside the page (plain JavaScript text: tsx's helpers do not
+ * exist there): press Ctrl+Down, then poll every animation frame until the
+ * title changed and every figure in view is drawn.
+ */
+const SWITCH_ONCE = `new Promise((resolve, reject) => {
+  const prev = document.querySelector('[data-testid=unit-title]')?.textContent;
+  const t0 = performance.now();
+  document.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowDown', code: 'ArrowDown', ctrlKey: true, bubbles: true }));
+  // Arrival of the new unit's figures: the moment React writes them into the page (a mutation
+  // observer runs before the figures' drawing, which follows in the same task).
+  let arrived = NaN;
+  const figs = document.querySelector('[data-testid=unit-figures]');
+  const mo = new MutationObserver(() => {
+    if (arrived === arrived) return;
+    const title = document.querySelector('[data-testid=unit-title]')?.textContent;
+    if (title !== prev && 'Unit ' + figs.dataset.unit === title) arrived = performance.now() - t0;
+  });
+  mo.observe(figs, { attributes: true, attributeFilter: ['data-unit'] });
+  const check = () => {
+    const title = document.querySelector('[data-testid=unit-title]')?.textContent;
+    const shown = 'Unit ' + document.querySelector('[data-testid=unit-figures]')?.dataset.unit;
+    const pane = document.querySelector('.content').getBoundingClientRect();
+    const visible = Array.from(document.querySelectorAll('.unit-main .plot')).filter((p) => {
+      const b = p.getBoundingClientRect();
+      return b.bottom > pane.top && b.top < pane.bottom;
+    });
+    if (title !== prev && shown === title && visible.length > 0 && visible.every((p) => p.dataset.drawn === 'true')) (mo.disconnect(), resolve({ ms: performance.now() - t0, arrived, inView: visible.length }));
+    else if (performance.now() - t0 > 120000) reject(new Error('a switch took over 2 minutes'));
+    else requestAnimationFrame(check);
+  };
+  requestAnimationFrame(check);
+})`;
+
+/**
+ * Unit-to-unit switches on the Unit page (Ctrl+Down), each timed from the key
+ * press until the new unit's title and every figure in view are drawn (the
+ * page draws figures as they come into view: renderer/components/Plot.tsx).
+ * Timed inside the page (performance.now around the key event and the drawn
+ * state, polled every animation frame), so the driver's round trips do not
+ * count. Returns the switch times and how many figures were in view.
+ */
+async function unitSwitches(page: Page): Promise<{ times: number[]; arrived: number[]; inView: number; figures: number }> {
   await page.locator('.trow').first().dblclick();
   await page.locator('.unit-main .plot[data-drawn=true]').first().waitFor({ timeout: 300_000 });
-  const out: number[] = [];
+  const times: number[] = [];
+  const arrived: number[] = [];
+  let inView = 0;
   for (let i = 0; i < switches; i++) {
-    const before = await page.getByTestId('unit-title').innerText();
-    const t0 = Date.now();
-    await page.keyboard.press('Control+ArrowDown');
-    await page.waitForFunction(
-      (prev) => {
-        const title = document.querySelector('[data-testid=unit-title]')?.textContent;
-        const plots = Array.from(document.querySelectorAll(".unit-main .plot"));
-        return title !== prev && plots.length > 0 && plots.every((p) => (p as HTMLElement).dataset.drawn === 'true');
-      },
-      before,
-      { timeout: 120_000, polling: 'raf' },
-    );
-    out.push(Date.now() - t0);
+    const r = (await page.evaluate(SWITCH_ONCE)) as { ms: number; arrived: number; inView: number };
+    times.push(Math.round(r.ms));
+    arrived.push(Math.round(r.arrived));
+    inView = r.inView;
   }
-  return out;
+  return { times, arrived, inView, figures: await page.locator('.unit-main .plot').count() };
 }
 
 const q = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(p * xs.length))];
@@ -120,7 +157,10 @@ async function main(): Promise<void> {
     const page2 = await browser.newPage({ viewport: { width: 1366, height: 800 } });
     console.log(`${units}-unit session: open to drawn unit table ${await openToTable(page2, bigServer.url)} ms`);
     const sw = await unitSwitches(page2);
-    console.log(`${units}-unit session: unit-to-unit switch over ${sw.length} switches: median ${q(sw, 0.5)} ms, p90 ${q(sw, 0.9)} ms, max ${Math.max(...sw)} ms (target < 100 ms)`);
+    console.log(
+      `${units}-unit session: unit-to-unit switch over ${sw.times.length} switches (until the ${sw.inView} figures in view of ${sw.figures} are drawn): median ${q(sw.times, 0.5)} ms, p90 ${q(sw.times, 0.9)} ms, max ${Math.max(...sw.times)} ms (target < 100 ms)`,
+    );
+    console.log(`${units}-unit session: of which the new unit's figures arrived from the worker after: median ${q(sw.arrived, 0.5)} ms, p90 ${q(sw.arrived, 0.9)} ms (the rest is drawing)`);
   } finally {
     await browser.close();
     await demoServer.close();

@@ -50,11 +50,13 @@ export function contentTypeOf(path: string): string {
  * The Content-Security-Policy of the app's pages: scripts and workers only from
  * the app itself; no remote content at all. Plotly injects its own style
  * elements, hence 'unsafe-inline' for styles only; images from data:/blob: are
- * the figure exports.
+ * the figure exports. 'wasm-unsafe-eval' lets the analysis worker compile the
+ * HDF5 library's WebAssembly (NWB files); it allows WebAssembly only, never
+ * eval() of JavaScript.
  */
 export const CONTENT_SECURITY_POLICY = [
   "default-src 'self'",
-  "script-src 'self'",
+  "script-src 'self' 'wasm-unsafe-eval'",
   "worker-src 'self' blob:",
   "style-src 'self' 'unsafe-inline'",
   "img-src 'self' data: blob:",

@@ -1,7 +1,9 @@
 import { verdictColumns } from '../curation/verdict-columns';
 import { verdictWords } from '../curation/verdict-words';
 import type { Parameters } from '../defaults';
-import { VERDICT_STYLE } from '../figures/theme';
+import { figureHeight } from '../figures/draw/figure-height';
+import { forScreen } from '../figures/draw/for-screen';
+import { VERDICT_STYLE, type FigureSpec } from '../figures/theme';
 import type { InputFileRecord } from '../io/import-result';
 import type { Warning } from '../model/types';
 import { formatNumber } from '../table/format-number';
@@ -117,7 +119,14 @@ ${ids.map((id, i) => unitSection(t, i, id, r.figures.units[i] ?? [])).join('\n')
 <h3>Warnings</h3>${r.warnings.length ? `<ul>${r.warnings.map((w) => `<li><code>${esc(w.code)}</code> x${w.count}${w.file ? ` (${esc(w.file)})` : ''}: ${esc(w.message)}</li>`).join('')}</ul>` : '<p>None.</p>'}
 <h3>All parameters</h3>${renderValue(r.parameters)}</section>`);
 
-  const figureData = { pop: r.figures.population.map((f) => f.spec), units: r.figures.units.map((fs) => fs.map((f) => f.spec)) };
+  // SVG traces only, every tick and point kept (forScreen exact): a report opened where WebGL
+  // does not work (no GPU, remote desktops, some browsers' privacy settings) draws every figure
+  const svg = (spec: FigureSpec): FigureSpec => {
+    const heightPx = figureHeight(spec);
+    const out = forScreen(spec, { widthPx: 900, heightPx, exact: true });
+    return { ...out, layout: { ...out.layout, height: heightPx } };
+  };
+  const figureData = { pop: r.figures.population.map((f) => svg(f.spec)), units: r.figures.units.map((fs) => fs.map((f) => svg(f.spec))) };
   return `<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <meta name="generator" content="tagbench ${esc(r.toolVersion)}">

@@ -239,13 +239,19 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
     if (!session || screen !== 'unit') return;
     let live = true;
     client.unitView(selected, eventOptions).then(
-      (v) => live && setUnitView(v),
+      (v) => {
+        if (!live) return;
+        setUnitView(v);
+        // The next and previous units in the table's order, computed by the worker while this one draws.
+        const at = order.indexOf(selected);
+        if (at >= 0) client.prefetchUnitViews([order[at + 1] ?? -1, order[at - 1] ?? -1], eventOptions);
+      },
       (e) => live && !(e instanceof CancelledError) && setStatus(message(e)),
     );
     return () => {
       live = false;
     };
-  }, [client, session, screen, selected, eventOptions]);
+  }, [client, session, screen, selected, eventOptions, order]);
 
   // Saving: every change is kept (debounced), so curation work is never lost.
   const save = useCallback(
@@ -440,7 +446,7 @@ export function App({ host, client }: { host: Host; client: AnalysisClient }) {
           <UnitPageScreen
             session={session}
             unitIndex={selected}
-            view={unitView && unitView.unitIndex === selected ? unitView : null}
+            view={unitView}
             curation={unitCurationOf(curation, unitId)}
             onEdit={edit}
             noteRef={noteRef}

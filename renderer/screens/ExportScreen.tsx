@@ -1,6 +1,7 @@
 import type Plotly from 'plotly.js-dist-min';
 import { loadPlotly } from '../components/load-plotly';
-import { withSvgTraces } from '../components/webgl-fallback';
+import { figureHeight } from '../../core/figures/draw/figure-height';
+import { forScreen } from '../../core/figures/draw/for-screen';
 import { useEffect, useState } from 'react';
 import type { CurationHistory } from '../../core/curation/history';
 import type { FigureSpec } from '../../core/figures/theme';
@@ -90,8 +91,8 @@ export function ExportScreen(props: {
     save(
       `${f.name}.${format}`,
       async () => {
-        const height = Number((f.spec.layout as { height?: number }).height) || 450;
-        const spec = withSvgTraces(f.spec);
+        const height = figureHeight(f.spec);
+        const spec = forScreen(f.spec, { widthPx: EXPORT_WIDTH, heightPx: height, exact: true });
         const url = await (await loadPlotly()).toImage({ data: spec.data as Plotly.Data[], layout: spec.layout as Partial<Plotly.Layout> }, { format, width: EXPORT_WIDTH, height, scale: format === 'png' ? 2 : 1 });
         return dataUrlBytes(url);
       },

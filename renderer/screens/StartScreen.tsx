@@ -37,7 +37,10 @@ export function StartScreen(props: {
     e.preventDefault();
     setOver(false);
     const items = [...e.dataTransfer.items].map((i) => i.webkitGetAsEntry()).filter((x): x is FileSystemEntry => !!x);
+    // Without file-system entries (some browsers, files dropped from a program): the plain files, one .nwb or a flat folder.
+    const plain = items.length === 0 ? [...e.dataTransfer.files] : [];
     onOpenWith(async () => {
+      if (plain.length > 0) return filesToSession(plain, plain.length === 1 && /\.nwb$/i.test(plain[0].name) ? 'nwb' : 'folder');
       const files: File[] = [];
       if (items.length === 1 && items[0].isFile && /\.nwb$/i.test(items[0].name)) {
         await entriesToFiles(items[0], '', files);
@@ -74,6 +77,7 @@ export function StartScreen(props: {
           }}
           onDragLeave={() => setOver(false)}
           onDrop={onDrop}
+          data-testid="dropzone"
         >
           or drop a session folder or an .nwb file here
         </div>

@@ -25,6 +25,7 @@ const SECTIONS: readonly { id: UnitSection; title: string }[] = [
 export function UnitPageScreen(props: {
   session: OpenSession;
   unitIndex: number;
+  /** The figures last received from the worker; while they are another unit's (a switch in flight), they are dimmed and their reasons hidden. */
   view: UnitView | null;
   curation: UnitCuration;
   onEdit: (action: UnstampedAction) => void;
@@ -98,7 +99,7 @@ export function UnitPageScreen(props: {
           />
           {curation.note && <div className="muted small">note by {curation.note.by}, {curation.note.at.slice(0, 16).replace('T', ' ')} UTC</div>}
         </section>
-        {view && view.reasons.length > 0 && (
+        {view && view.unitIndex === unitIndex && view.reasons.length > 0 && (
           <section>
             <h2>Reasons</h2>
             <ul className="reasons">
@@ -124,7 +125,13 @@ export function UnitPageScreen(props: {
           </table>
         </section>
       </aside>
-      <div className="unit-main" data-testid="unit-figures">
+      {/* Until the new unit's figures arrive, the previous unit's are dimmed, never shown as this unit's. */}
+      <div
+        className={view && view.unitIndex !== unitIndex ? 'unit-main stale' : 'unit-main'}
+        data-testid="unit-figures"
+        data-unit={view?.unitId}
+        aria-busy={!view || view.unitIndex !== unitIndex}
+      >
         {!view && <p className="muted">Drawing...</p>}
         {view &&
           SECTIONS.map((s) => {

@@ -113,7 +113,10 @@ export interface WorkbenchApi {
   open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome>;
   /** Re-runs the analysis with new parameter overrides (validated; an InputError names the bad key). */
   analyse(overrides: unknown, onProgress: (p: Progress) => void): Promise<AnalysisOutcome>;
+  /** Everything the Unit page shows of one unit (kept for the last few units and event views). */
   unitView(unitIndex: number, eventView: EventView): Promise<UnitView>;
+  /** Computes the unit views of these units ahead (the neighbours in the table's order), so stepping to them answers at once. */
+  prefetchUnitViews(unitIndexes: readonly number[], eventView: EventView): Promise<void>;
   /** Population summaries over the units the curation does not exclude. */
   population(curation: CurationState): Promise<PopulationView>;
   /** The unit table as text (units.csv layout); with curation, final_* / included / note columns follow (applyCuration). */

@@ -60,6 +60,11 @@ export class AnalysisClient {
     return this.cancellable(this.api.unitView(unitIndex, view));
   }
 
+  /** Fire and forget: the worker computes these units' views while the page draws (errors are ignored: the real request reports them). */
+  prefetchUnitViews(unitIndexes: readonly number[], view: EventView): void {
+    this.api.prefetchUnitViews(unitIndexes, view).catch(() => undefined);
+  }
+
   population(curation: CurationState): Promise<PopulationView> {
     return this.cancellable(this.api.population(curation));
   }

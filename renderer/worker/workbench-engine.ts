@@ -18,9 +18,8 @@ import { buildRunRecord } from '../../core/export/build-run-record';
 import type { AnalysisOutcome, EventView, OpenOutcome, PlacedFigure, PopulationView, Progress, SessionFileInput, TableData, TableFormat, UnitSection, UnitView, WorkbenchApi } from './api';
 import { POPULATION_FIGURE_LIST, UNIT_FIGURE_LIST } from './figure-lists';
 import { isVerdictColumn } from '../state/verdict-columns';
-import { importSession } from '../../core/io/import-session';
 import type { InputFileRecord } from '../../core/io/import-result';
-import { createBlobSessionSource } from './blob-session-source';
+import { importSessionFiles, type OpenHdf5Bytes } from './import-session-files';
 
 /**
  * The worker's engine: holds the imported recording and the last analysis,
@@ -36,12 +35,17 @@ export class WorkbenchEngine implements WorkbenchApi {
   private importWarnings: readonly Warning[] = [];
   private analysisWarnings: readonly Warning[] = [];
   private summaries: Readonly<Record<string, unknown>> = {};
+  /** Unit views of the current analysis by unit and event view (cleared by every analysis). */
+  private views = new Map<string, UnitView>();
   private openedAt = '';
   private session: { name: string; kind: 'folder' | 'nwb' } = { name: '', kind: 'folder' };
 
+  /** `openHdf5Bytes` replaces the worker's h5wasm opener (tests in Node). */
+  constructor(private readonly openHdf5Bytes?: OpenHdf5Bytes) {}
+
   async open(files: readonly SessionFileInput[], name: string, overrides: unknown, onProgress: (p: Progress) => void): Promise<OpenOutcome> {
     onProgress({ label: `Importing ${name}`, done: 0, total: 1 });
-    const imported = await importSession(createBlobSessionSource(name, files));
+    const imported = await importSessionFiles(name, files, this.openHdf5Bytes);
     this.recording = imported.recording;
     this.sessionParameters = imported.parameterSources;
     this.inputs = imported.inputs;
@@ -77,6 +81,7 @@ export class WorkbenchEngine implements WorkbenchApi {
     });
     this.summaries = summaries;
     this.analysisWarnings = warnings;
+    this.views.clear();
     onProgress({ label: 'Analysis done', done: STEPS.length, total: STEPS.length });
     this.parameters = parameters;
     this.table = assembleTable([...columns.values()], rec.units.length);
@@ -84,6 +89,25 @@ export class WorkbenchEngine implements WorkbenchApi {
   }
 
   async unitView(unitIndex: number, eventView: EventView): Promise<UnitView> {
+    const key = `${unitIndex}|${JSON.stringify(eventView)}`;
+    const cached = this.views.get(key);
+    if (cached) return cached;
+    const view = this.buildUnitView(unitIndex, eventView);
+    this.views.set(key, view);
+    // Keep the last few (the units around the one on screen); the oldest go first.
+    for (const k of this.views.keys()) {
+      if (this.views.size <= VIEW_CACHE_SIZE) break;
+      this.views.delete(k);
+    }
+    return view;
+  }
+
+  async prefetchUnitViews(unitIndexes: readonly number[], eventView: EventView): Promise<void> {
+    const rec = this.need();
+    for (const i of unitIndexes) if (i >= 0 && i < rec.units.length) await this.unitView(i, eventView);
+  }
+
+  private buildUnitView(unitIndex: number, eventView: EventView): UnitView {
     const rec = this.need();
     const unit = rec.units[unitIndex];
     if (!unit) throw new Error(`no unit at index ${unitIndex}`);
@@ -207,6 +231,9 @@ export class WorkbenchEngine implements WorkbenchApi {
     return this.table;
   }
 }
+
+/** Unit views kept by the engine: the one on screen and its neighbours in the table, fetched ahead. */
+const VIEW_CACHE_SIZE = 8;
 
 /** The Unit page section a unit figure belongs to, by its id. */
 function sectionOf(f: UnitFigure): UnitSection {

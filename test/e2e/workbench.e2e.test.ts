@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoDir } from '../../renderer/vite.config';
-import { ARTIFACTS, openWorkbench, type Workbench } from './browser';
+import { ARTIFACTS, openWorkbench, ROOT, type Workbench } from './browser';
 
 const LONG = 180_000;
 let wb: Workbench;
@@ -27,6 +27,13 @@ function demoSpikeCounts(): Map<string, number> {
     counts.set(id, (counts.get(id) ?? 0) + 1);
   }
   return counts;
+}
+
+/** NWB fixtures (h5py-written, test/fixtures/nwb/make_fixtures.py) and the values their generator recorded. */
+const NWB_DIR = join(ROOT, 'test', 'fixtures', 'nwb');
+function nwbExpected(file = 'session_uint8.nwb'): { ids: string[]; counts: number[] } {
+  const u = JSON.parse(readFileSync(join(NWB_DIR, 'expected.json'), 'utf8')).files[file].units as { ids: string[]; spike_times: number[][] };
+  return { ids: u.ids, counts: u.spike_times.map((s) => s.length) };
 }
 
 const shot = (name: string) => wb.page.screenshot({ path: join(ARTIFACTS, `${name}.png`) });
@@ -88,12 +95,32 @@ describe.sequential('workbench in a real browser', () => {
     const id = await first.getAttribute('data-unit');
     await first.dblclick();
     await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).toBe(`Unit ${id}`);
+    await wb.page.locator('.unit-main .plot[data-drawn=true]').first().waitFor({ timeout: LONG });
+    await shot('4-unit-page');
+    // Figures draw when scrolled near; scroll through every one and wait until it is drawn.
+    const figures = wb.page.locator('.unit-main .plot');
+    await figures.first().waitFor({ timeout: LONG });
+    const n = await figures.count();
+    expect(n).toBeGreaterThanOrEqual(8);
+    for (let i = 0; i < n; i++) {
+      await figures.nth(i).scrollIntoViewIfNeeded();
+      await expect.poll(() => figures.nth(i).getAttribute('data-drawn'), { timeout: LONG }).toBe('true');
+    }
     const plot = wb.page.locator('[data-testid=plot-event-response][data-drawn=true]');
-    await plot.waitFor({ timeout: LONG });
+    await plot.scrollIntoViewIfNeeded();
     expect(await plot.locator('.scatterlayer .trace').count()).toBeGreaterThan(1);
     expect(await plot.locator('.xtitle').textContent()).toMatch(/^Time from \w+ \(s\)$/);
     expect(await plot.locator('.ytitle').first().textContent()).toMatch(/\((spikes\/s|Hz)\)|Trial|Event/);
-    await shot('4-unit-page');
+    // The busiest unit's raster (tens of thousands of spikes) is drawn as SVG paths, never as plotly's WebGL notice.
+    const rasterTicks = await plot.locator('.scatterlayer .trace path.js-line').evaluateAll((ps) => ps.reduce((k, p) => k + ((p.getAttribute('d') ?? '').match(/M/g)?.length ?? 0), 0));
+    expect(rasterTicks).toBeGreaterThan(1000);
+    await shot('4a-unit-page-event-response');
+    const notices = await figures.evaluateAll((els) => els.filter((e) => e.querySelector('.no-webgl') || /WebGL is not supported/.test((e as HTMLElement).innerText)).map((e) => (e as HTMLElement).dataset.testid));
+    expect(notices).toEqual([]);
+    expect(await wb.page.locator('canvas').count()).toBe(0);
+    await wb.page.locator('.unit-main').evaluate((el) => el.scrollIntoView());
+    await wb.page.getByTestId('plot-light-following').scrollIntoViewIfNeeded();
+    await shot('4c-unit-page-light-following');
     // Next unit by keyboard.
     await wb.page.keyboard.press('Control+ArrowDown');
     await expect.poll(() => wb.page.getByTestId('unit-title').innerText()).not.toBe(`Unit ${id}`);
@@ -151,6 +178,16 @@ describe.sequential('workbench in a real browser', () => {
   it('shows the population and the keyboard help', async () => {
     await wb.page.getByRole('button', { name: 'Population' }).click();
     await wb.page.locator('.population').waitFor({ timeout: LONG });
+    // Units per verdict: every bar carries its count as text, drawn above the bars and inside the figure (not clipped).
+    const counts = wb.page.locator('[data-testid=plot-verdict-counts][data-drawn=true]');
+    await counts.waitFor({ timeout: LONG });
+    const fit = await counts.evaluate((el) => {
+      const box = el.querySelector('svg.main-svg')!.getBoundingClientRect();
+      const labels = Array.from(el.querySelectorAll('.bars .point text')).map((t) => t.getBoundingClientRect());
+      return { labels: labels.length, inside: labels.every((r) => r.top >= box.top && r.bottom <= box.bottom) };
+    });
+    expect(fit.labels).toBeGreaterThan(10);
+    expect(fit.inside).toBe(true);
     await shot('6-population');
     await wb.page.keyboard.press('?');
     await wb.page.getByRole('dialog', { name: 'Keyboard shortcuts' }).waitFor();
@@ -184,6 +221,43 @@ describe.sequential('workbench in a real browser', () => {
     expect(html).toContain('tagbench report: demo');
     expect(html).toMatch(/statistical screen/);
     for (const id of counts.keys()) expect(html).toContain(id);
+    expect(wb.pageErrors).toEqual([]);
+  }, LONG);
+
+  it('opens an NWB file picked through the file input and lists its units (h5wasm in the worker)', async () => {
+    const e = nwbExpected();
+    await wb.page.getByRole('button', { name: 'Start' }).click();
+    const [chooser] = await Promise.all([wb.page.waitForEvent('filechooser'), wb.page.getByRole('button', { name: 'Open NWB file...' }).click()]);
+    await chooser.setFiles(join(NWB_DIR, 'session_uint8.nwb'));
+    await wb.page.locator('.facts').waitFor({ timeout: LONG });
+    expect(await wb.page.locator('.session-name').innerText()).toBe(`session_uint8.nwb · ${e.ids.length} units`);
+    await shot('10-nwb-overview');
+    await wb.page.getByRole('button', { name: 'Unit table' }).click();
+    expect(await wb.page.getByTestId('row-count').innerText()).toBe(`${e.ids.length} of ${e.ids.length} units`);
+    const rows = await wb.page.locator('.trow').evaluateAll((els) => els.map((r) => Array.from(r.querySelectorAll('.cell')).map((c) => (c as HTMLElement).innerText)));
+    expect(rows.map((r) => [r[0], Number(r[1])])).toEqual(e.ids.map((id, i) => [id, e.counts[i]]));
+    await shot('11-nwb-unit-table');
+    expect(wb.pageErrors).toEqual([]);
+  }, LONG);
+
+  it('opens an NWB file dropped on the Start screen', async () => {
+    const e = nwbExpected();
+    await wb.page.getByRole('button', { name: 'Start' }).click();
+    const bytes = readFileSync(join(NWB_DIR, 'units_uint64.nwb')).toString('base64');
+    const dt = await wb.page.evaluateHandle((b64) => {
+      const raw = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0));
+      const d = new DataTransfer();
+      d.items.add(new File([raw], 'units_uint64.nwb'));
+      return d;
+    }, bytes);
+    await wb.page.getByTestId('dropzone').dispatchEvent('drop', { dataTransfer: dt });
+    await wb.page.locator('.facts').waitFor({ timeout: LONG });
+    const other = nwbExpected('units_uint64.nwb');
+    expect(other.counts).not.toEqual(e.counts);
+    expect(await wb.page.locator('.session-name').innerText()).toBe(`units_uint64.nwb · ${other.ids.length} units`);
+    await wb.page.getByRole('button', { name: 'Unit table' }).click();
+    const rows = await wb.page.locator('.trow').evaluateAll((els) => els.map((r) => Array.from(r.querySelectorAll('.cell')).map((c) => (c as HTMLElement).innerText)));
+    expect(rows.map((r) => [r[0], Number(r[1])])).toEqual(other.ids.map((id, i) => [id, other.counts[i]]));
     expect(wb.pageErrors).toEqual([]);
   }, LONG);
 

@@ -34,7 +34,8 @@ describe('app assets', () => {
     expect(ok.status).toBe(200);
     expect(ok.headers['Content-Type']).toBe('text/javascript; charset=utf-8');
     expect(ok.headers['Content-Security-Policy']).toBe(CONTENT_SECURITY_POLICY);
-    expect(CONTENT_SECURITY_POLICY).toContain("script-src 'self'");
+    expect(CONTENT_SECURITY_POLICY).toContain("script-src 'self' 'wasm-unsafe-eval';");
+    expect(CONTENT_SECURITY_POLICY).not.toMatch(/'unsafe-eval'|script-src[^;]*'unsafe-inline'/);
     expect(new TextDecoder().decode(ok.body)).toBe('console.log(1)');
     expect((await serveAsset(dir, 'GET', '/nope.js')).status).toBe(404);
     expect((await serveAsset(dir, 'POST', '/')).status).toBe(405);

@@ -44,15 +44,21 @@ export const lightFollowingFigure: UnitFigure = {
       data.push({ type: 'scatter', mode: 'lines+markers', name, legendgroup: name, x, y: rel, line: { color }, xaxis: 'x', yaxis: 'y' });
       data.push({ type: 'scatter', mode: 'lines+markers', name, legendgroup: name, showlegend: false, x, y: lat, line: { color, dash: 'dot' }, xaxis: 'x', yaxis: 'y2' });
     }
+    // Two panels on one pulse axis: reliability on top, latency below; the
+    // shared x axis sits under the lower panel, the legend above the plot, and
+    // the axis titles make their own room (automargin), so nothing overlaps at
+    // laptop size (460 px tall on screen: core/figures/draw/figure-height.ts).
     return {
       data,
       layout: {
         ...BASE_LAYOUT,
-        title: { text: `Unit ${ctx.recording.units[unitIndex].id}: following by pulse in train` },
-        grid: { rows: 2, columns: 1, pattern: 'independent' },
-        xaxis: { title: { text: 'pulse in train' }, dtick: 1 },
-        yaxis: { title: { text: 'reliability' }, range: [0, 1.05], domain: [0.55, 1] },
-        yaxis2: { title: { text: 'latency (ms)' }, domain: [0, 0.45], anchor: 'x' },
+        height: 460,
+        margin: { l: 64, r: 16, t: 64, b: 48 },
+        title: { text: `Unit ${ctx.recording.units[unitIndex].id}: following by pulse in train`, y: 0.98, yanchor: 'top' },
+        legend: { orientation: 'h', x: 0, xanchor: 'left', y: 1.02, yanchor: 'bottom' },
+        xaxis: { title: { text: 'pulse in train' }, dtick: 1, anchor: 'y2', automargin: true },
+        yaxis: { title: { text: 'reliability' }, range: [0, 1.05], domain: [0.56, 1], tickformat: '.1f', nticks: 4, automargin: true },
+        yaxis2: { title: { text: 'latency (ms)' }, domain: [0, 0.44], anchor: 'x', rangemode: 'tozero', nticks: 4, automargin: true },
       },
     };
   },

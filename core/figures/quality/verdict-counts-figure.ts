@@ -30,20 +30,27 @@ export const verdictCountsFigure: PopulationFigure = {
         final.push(f ? (f.values as readonly string[]).filter((v) => v === w).length : NaN);
       }
     }
+    // Count labels above the bars are never clipped (cliponaxis false, 15 %
+    // headroom on y); the two-level category labels (word, then column) get
+    // the room they need below the axis (automargin); the legend sits above.
+    const top = Math.max(1, ...computed, ...final.filter((v) => !Number.isNaN(v)));
     const data: Record<string, unknown>[] = [
-      { type: 'bar', x: xs, y: computed, name: 'computed', marker: { color: OKABE_ITO.blue }, text: computed.map(String), textposition: 'outside' },
+      { type: 'bar', x: xs, y: computed, name: 'computed', marker: { color: OKABE_ITO.blue }, text: computed.map(String), textposition: 'outside', cliponaxis: false },
     ];
     if (anyFinal) {
-      data.push({ type: 'bar', x: xs, y: final.map((v) => (Number.isNaN(v) ? null : v)), name: 'final (after curation)', marker: { color: OKABE_ITO.orange, pattern: { shape: '/' } }, text: final.map((v) => (Number.isNaN(v) ? '' : String(v))), textposition: 'outside' });
+      data.push({ type: 'bar', x: xs, y: final.map((v) => (Number.isNaN(v) ? null : v)), name: 'final (after curation)', marker: { color: OKABE_ITO.orange, pattern: { shape: '/' } }, text: final.map((v) => (Number.isNaN(v) ? '' : String(v))), textposition: 'outside', cliponaxis: false });
     }
     return {
       data,
       layout: {
         ...BASE_LAYOUT,
-        title: { text: `Units per verdict (${table.rowCount} units)` },
+        height: 380,
+        margin: { l: 60, r: 16, t: 72, b: 24 },
+        title: { text: `Units per verdict (${table.rowCount} units)`, y: 0.98, yanchor: 'top' },
+        legend: { orientation: 'h', x: 0, xanchor: 'left', y: 1.02, yanchor: 'bottom' },
         barmode: 'group',
-        xaxis: { type: 'multicategory' },
-        yaxis: { title: { text: 'Units' }, rangemode: 'tozero' },
+        xaxis: { type: 'multicategory', automargin: true, tickfont: { size: 11 } },
+        yaxis: { title: { text: 'Units' }, range: [0, top * 1.15], automargin: true },
       },
     };
   },

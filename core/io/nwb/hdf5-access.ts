@@ -62,3 +62,8 @@ export interface Hdf5File {
    */
   read(datasetPath: string, start?: number, stop?: number): H5Data;
 }
+
+/** An open HDF5 file: the read interface plus close() (callers close it in try/finally). */
+export interface OpenHdf5File extends Hdf5File {
+  close(): void;
+}

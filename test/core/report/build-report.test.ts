@@ -55,6 +55,27 @@ describe('buildReport', () => {
   });
 });
 
+describe('buildReport figures', () => {
+  it('embeds SVG traces only, keeping every spike of a raster and every point of a line', () => {
+    const xs = Array.from({ length: 3000 }, (_, i) => (i % 1000) / 1000);
+    const ys = Array.from({ length: 3000 }, (_, i) => Math.floor(i / 1000) + 1);
+    const raster = { type: 'scattergl', mode: 'markers', x: xs, y: ys, marker: { symbol: 'line-ns-open', size: 4 } };
+    const line = { type: 'scattergl', mode: 'lines', x: xs.slice(0, 1000), y: xs.slice(0, 1000) };
+    const spec = { data: [raster, line], layout: { yaxis: { title: { text: 'trial' } } } };
+    const html = buildReport({ ...base, figures: { population: [{ id: 'raster', title: 'Raster', spec }], units: [[], [], []] } });
+    const json = JSON.parse(html.match(/<script type="application\/json" id="tb-figures">([\s\S]*?)<\/script>/)![1]);
+    const drawn = json.pop[0];
+    expect(JSON.stringify(drawn)).not.toContain('scattergl');
+    expect(drawn.layout.height).toBe(340); // one panel (figureHeight)
+    // the raster became one path: a vertical segment (two points, then a null gap) per spike, all 3000 kept
+    const [rasterOut, lineOut] = drawn.data;
+    expect(rasterOut.type).toBe('scatter');
+    expect(rasterOut.x.filter((x: number | null) => x !== null).length).toBe(2 * 3000);
+    expect(lineOut.type).toBe('scatter');
+    expect(lineOut.x.length).toBe(1000);
+  });
+});
+
 describe('embedding helpers', () => {
   it('escapeHtml covers & < > " \'', () => expect(escapeHtml(`<a href="x">'&'</a>`)).toBe('&lt;a href=&quot;x&quot;&gt;&#39;&amp;&#39;&lt;/a&gt;'));
   it('embedJson cannot end a script element and parses back', () => {

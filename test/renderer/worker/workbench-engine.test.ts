@@ -97,4 +97,24 @@ describe('the workbench engine (what the analysis worker runs)', () => {
     expect(run.columns.map((c: { name: string }) => c.name)).toContain('final_tag');
     expect(Object.keys(run.steps)).toEqual(['basic', 'light', 'ramp', 'jump', 'cluster', 'quality']);
   });
+
+  it('answers prefetched unit views from its cache, equal to fresh ones, and forgets them when the analysis changes', async () => {
+    const a = DEFAULTS.align;
+    const view = { event: 'reward', windowStartS: -2, windowStopS: 1, binMs: a.binMs, smoothing: 'none', smoothingWidthMs: 0, groupBy: 'condition' };
+    const engine = new WorkbenchEngine();
+    await engine.open(files(TINY), 'tiny', {}, () => undefined);
+    await engine.prefetchUnitViews([2, 3, -1, 99], view);
+    const fresh = new WorkbenchEngine();
+    await fresh.open(files(TINY), 'tiny', {}, () => undefined);
+    const v2 = await engine.unitView(2, view);
+    expect(v2).toEqual(await fresh.unitView(2, view));
+    expect(await engine.unitView(2, view)).toBe(v2);
+    // Another event window is another view.
+    expect((await engine.unitView(2, { ...view, windowStartS: -1 })).figures).not.toEqual(v2.figures);
+    await engine.analyse({ light: { windowEndMs: 4 } }, () => undefined);
+    const after = await engine.unitView(2, view);
+    expect(after).not.toBe(v2);
+    const light = (v: typeof v2) => JSON.stringify(v.figures.filter((f) => f.section === 'light').map((f) => f.spec.layout));
+    expect(light(after)).not.toBe(light(v2));
+  });
 });
