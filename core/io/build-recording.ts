@@ -17,8 +17,10 @@
  *  - times beyond the recording span by more than `toleranceS`; with an
  *    explicit span, any time past span stop + tolerance; with a span taken
  *    from the inputs, one file ending over SCALE_RATIO times later than all
- *    others. Both say "looks like milliseconds labelled as seconds" when the
- *    overshoot is a factor of ~1000 (the classic unit slip);
+ *    others (unless it is the spike file and the units' median rate is at
+ *    least PLAUSIBLE_MEDIAN_RATE_HZ: then a warning). Both say "looks like
+ *    milliseconds labelled as seconds" when the overshoot is a factor of
+ *    ~1000 (the classic unit slip);
  *  - laser pulses (onset, or onset + duration) outside the recording span.
  * Warnings (counted): unsorted spikes, duplicate spike times, units without
  * spikes.
@@ -140,8 +142,16 @@ export interface RecordingTables {
   readonly raw?: RawSource;
 }
 
-/** Files whose latest time exceeds every other file's by more than this factor are rejected. */
+/** Files whose latest time exceeds every other file's by more than this factor are rejected (but see PLAUSIBLE_MEDIAN_RATE_HZ). */
 export const SCALE_RATIO = 300;
+/**
+ * When the spike file is the one running long, a median unit rate of at least
+ * this (Hz, over [span start, last spike]) is taken as proof the spike times
+ * are seconds, and the session is accepted with a warning. Our choice: sorted
+ * units below 0.1 Hz median are rare, while milliseconds read as seconds put
+ * a 5 Hz unit at 0.005 Hz.
+ */
+export const PLAUSIBLE_MEDIAN_RATE_HZ = 0.1;
 
 export function buildRecording(t: RecordingTables): { recording: Recording; warnings: Warning[] } {
   const warnings: Warning[] = [];
@@ -310,7 +320,24 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     if (extents.length >= 2) {
       const top = extents.reduce((a, b) => (b.maxS > a.maxS ? b : a));
       const others = Math.max(...extents.filter((e) => e !== top).map((e) => e.maxS));
-      if (others > 0 && top.maxS > SCALE_RATIO * others) {
+      // Spikes running long after short pulses/events are a real design too (a brief light block
+      // at the start, no task): a unit slip in the spike file also divides every unit's apparent
+      // rate by ~1000 (ms) or more (samples), so a plausible median rate in seconds lets it pass.
+      const rates: number[] = [];
+      if (others > 0 && top.maxS > SCALE_RATIO * others && top.located === s) {
+        for (let c = 0; c < nCodes; c++) if (codeCount[c] > 0) rates.push(codeCount[c] / (top.maxS - start));
+        rates.sort((a, b) => a - b);
+      }
+      const medianRate = rates.length ? rates[(rates.length - 1) >> 1] : NaN;
+      if (others > 0 && top.maxS > SCALE_RATIO * others && medianRate >= PLAUSIBLE_MEDIAN_RATE_HZ) {
+        const ends = extents.filter((e) => e !== top).map((e) => `${e.file} by ${round(e.maxS)} s`).join(', ');
+        warnings.push({
+          code: 'inputs-end-early',
+          file: top.file,
+          count: 1,
+          message: `spike times run to ${round(top.maxS)} s but ${ends}; accepted as seconds because the units' median rate over that span (${round(medianRate)} Hz) is plausible (spike times in milliseconds would give rates ~1000x lower). If the other files should cover the whole recording, check their clock and time unit.`,
+        });
+      } else if (others > 0 && top.maxS > SCALE_RATIO * others) {
         const others = extents.filter((e) => e !== top).map((e) => `${e.file} by ${round(e.maxS)} s`).join(', ');
         throw new InputError({
           ...where(top.located, top.index),
