@@ -115,6 +115,18 @@ export const DEFAULTS = {
      * duration and cut into bins of about binS; slopes are then per template second.
      */
     anchorEvent: '',
+    /**
+     * Behavioural variable (a column of behaviour.csv, e.g. "position" or "progress") over which
+     * the ramp is also expressed ("" = none): spikes and time in the ramp windows are binned by
+     * the variable's interpolated value, and the progress_ramp columns report the per-trial
+     * occupancy-weighted slopes (Hz per unit of the variable), signed-rank test and Poisson GLM.
+     */
+    progressVariable: '',
+    /** Equal bins of the progress variable over its range (common practice). */
+    progressBins: 10,
+    /** Range of the progress variable; null = its 1st / 99th percentile over the samples inside the ramp windows. */
+    progressMin: null as number | null,
+    progressMax: null as number | null,
   },
   /** Transient answers to task-state jumps (DESIGN.md section 4; issue 5). */
   jump: {

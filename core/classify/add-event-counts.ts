@@ -16,8 +16,9 @@ export function addEventCounts(
   out: Float64Array,
   offset = 0,
 ): void {
+  let hint = 0; // galloping search from the previous event's first spike
   for (let k = 0; k < alignTimes.length; k++) {
     const a = alignTimes[k];
-    if (Number.isFinite(a)) addWindowCounts(spikeTimes, a + startS, binS, nBins, out, offset);
+    if (Number.isFinite(a)) hint = addWindowCounts(spikeTimes, a + startS, binS, nBins, out, offset, hint);
   }
 }

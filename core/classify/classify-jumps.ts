@@ -1,11 +1,11 @@
-import { addEventCounts } from './add-event-counts';
-import { countInWindow } from '../align/count-in-window';
+import { addWindowCounts } from '../align/add-window-counts';
+import { lowerBoundNear } from '../align/lower-bound-near';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { benjaminiHochberg } from '../stats/benjamini-hochberg';
 import { formatP } from './format-p';
 import { jumpUnit, type JumpUnitResult } from './jump-unit';
-import { referenceProfile, type ReferenceProfile } from './reference-profile';
+import { referenceProfile, type ReferenceProfile, type ReferenceProfileScratch } from './reference-profile';
 import { selectEvents } from './select-events';
 
 /** Results for one jump kind across units. */
@@ -98,28 +98,43 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
   const postLen = params.postEndS - params.postStartS;
   const lateLen = params.lateEndS - params.lateStartS;
 
+  // Buffers reused across units (jumpUnit keeps only the PSTH, which is new per unit).
+  const scratch: ReferenceProfileScratch = { count: new Float64Array(0), cover: new Float64Array(0), integral: new Float64Array(0) };
+  const buffers = groups.map((idx) => {
+    const n = idx.length;
+    return {
+      pre: new Float64Array(n), post: new Float64Array(n), late: new Float64Array(n),
+      cPost: new Float64Array(n), cLate: new Float64Array(n), size: Float64Array.from(idx, (i) => sizeAll[i]),
+    };
+  });
+  const counts = new Float64Array(nPsth);
+  // Spikes in [a, b) searched from a hint near a (lowerBoundNear; same counts as countInWindow).
+  let hint = 0;
+  const inWindow = (st: Float64Array, a: number, b: number): number => {
+    if (!(b > a)) return 0;
+    hint = lowerBoundNear(st, a, hint);
+    return lowerBoundNear(st, b, hint) - hint;
+  };
+
   for (let u = 0; u < nUnits; u++) {
     const st = recording.units[u].spikeTimes;
-    const profile: ReferenceProfile | null = refStarts.length > 0 ? referenceProfile(st, refStarts, refStops, profileLength) : null;
+    const profile: ReferenceProfile | null = refStarts.length > 0 ? referenceProfile(st, refStarts, refStops, profileLength, 0.001, scratch) : null;
     groups.forEach((idx, g) => {
       const n = idx.length;
-      const pre = new Float64Array(n);
-      const post = new Float64Array(n);
-      const late = new Float64Array(n);
-      const cPost = new Float64Array(n);
-      const cLate = new Float64Array(n);
-      const size = new Float64Array(n);
-      const times = new Float64Array(n);
+      const { pre, post, late, cPost, cLate, size } = buffers[g];
+      cPost.fill(0);
+      cLate.fill(0);
       const psth = new Float64Array(nPsth);
+      counts.fill(0);
       let controlled = 0;
+      hint = 0;
+      let psthHint = 0;
       for (let e = 0; e < n; e++) {
         const i = idx[e];
         const t = all.times[i];
-        times[e] = t;
-        size[e] = sizeAll[i];
-        pre[e] = countInWindow(st, t + params.preStartS, t + params.preEndS) / preLen;
-        post[e] = countInWindow(st, t + params.postStartS, t + params.postEndS) / postLen;
-        late[e] = countInWindow(st, t + params.lateStartS, t + params.lateEndS) / lateLen;
+        pre[e] = inWindow(st, t + params.preStartS, t + params.preEndS) / preLen;
+        post[e] = inWindow(st, t + params.postStartS, t + params.postEndS) / postLen;
+        late[e] = inWindow(st, t + params.lateStartS, t + params.lateEndS) / lateLen;
         const ta = tau[i];
         if (profile && ta === ta) {
           const rPre = profile.meanRate(ta + params.preStartS, ta + params.preEndS);
@@ -132,9 +147,9 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
             profile.addBins(ta + psthStartS, binS, nPsth, -1 / n, psth);
           }
         }
+        // Event-averaged PSTH counts (as addEventCounts, in the same pass over the events).
+        if (Number.isFinite(t)) psthHint = addWindowCounts(st, t + psthStartS, binS, nPsth, counts, 0, psthHint);
       }
-      const counts = new Float64Array(nPsth);
-      addEventCounts(st, times, psthStartS, binS, nPsth, counts);
       for (let j = 0; j < nPsth; j++) psth[j] += counts[j] / (binS * n);
       if (u === 0) controlledCount[g] = controlled;
       perKindUnits[g].push(

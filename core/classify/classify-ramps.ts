@@ -4,7 +4,8 @@ import { benjaminiHochberg } from '../stats/benjamini-hochberg';
 import { mannWhitney } from '../stats/mann-whitney';
 import { formatP } from './format-p';
 import { rampUnit, type RampUnitResult } from './ramp-unit';
-import { rampCounts, rampPlan } from './ramp-plan';
+import { rampCounts, rampPlan, type RampPlan } from './ramp-plan';
+import { rampUnitFromSpikes } from './ramp-unit-from-spikes';
 
 /** Per-condition ramp slopes, one entry per condition label present among the trials. */
 export interface ConditionRamps {
@@ -56,10 +57,9 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   const nUnits = recording.units.length;
   const units: RampUnitResult[] = [];
   const p = new Float64Array(nUnits);
-  const buffer = new Float64Array(plan.nTrials * centresS.length);
+  const buffer = plan.mode === 'fixed' ? new Float64Array(0) : new Float64Array(plan.nTrials * centresS.length);
   for (let u = 0; u < nUnits; u++) {
-    const c = rampCounts(recording.units[u].spikeTimes, plan, buffer);
-    const r = rampUnit(c.counts, plan.nTrials, centresS, plan.binS, params.minTrials, params.exactMaxN, c.exposureS);
+    const r = unitRamp(recording.units[u].spikeTimes, plan, buffer, params.minTrials, params.exactMaxN);
     units.push(r);
     p[u] = r.p;
   }
@@ -100,17 +100,14 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   for (const c of labels) {
     const isReference = c === params.condition && plan.nTrials > 0;
     const cp = isReference ? plan : rampPlan(recording, params, c, plan.template ?? undefined);
-    const cBuffer = new Float64Array(cp.nTrials * cp.centresS.length);
+    const cBuffer = cp.mode === 'fixed' ? new Float64Array(0) : new Float64Array(cp.nTrials * cp.centresS.length);
     const slope = new Float64Array(nUnits).fill(NaN);
     const diffP = new Float64Array(nUnits).fill(NaN);
     if (cp.nTrials > 0 && cp.centresS.length === centresS.length) {
       for (let u = 0; u < nUnits; u++) {
         const r = isReference
           ? units[u]
-          : (() => {
-              const k = rampCounts(recording.units[u].spikeTimes, cp, cBuffer);
-              return rampUnit(k.counts, cp.nTrials, cp.centresS, cp.binS, Infinity, params.exactMaxN, k.exposureS);
-            })();
+          : unitRamp(recording.units[u].spikeTimes, cp, cBuffer, Infinity, params.exactMaxN);
         slope[u] = r.slopeHzPerS;
         if (hasReference && !isReference && cp.nTrials >= 2 && plan.nTrials >= 2) diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;
       }
@@ -118,4 +115,11 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
     conditions.push({ condition: c, nTrials: cp.nTrials, slopeHzPerS: slope, diffP });
   }
   return { verdict, reason, q, units, conditions, centresS, note: plan.note, nTrials: plan.nTrials, mode: plan.mode };
+}
+
+/** One unit's ramp statistics under a plan: straight from the spikes for the fixed window, via counts and exposure when warped. */
+function unitRamp(spikeTimes: Float64Array, plan: RampPlan, buffer: Float64Array, minTrials: number, exactMaxN: number): RampUnitResult {
+  if (plan.mode === 'fixed') return rampUnitFromSpikes(spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS, minTrials, exactMaxN);
+  const c = rampCounts(spikeTimes, plan, buffer);
+  return rampUnit(c.counts, plan.nTrials, plan.centresS, plan.binS, minTrials, exactMaxN, c.exposureS);
 }

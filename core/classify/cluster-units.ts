@@ -2,6 +2,7 @@ import { PCA } from 'ml-pca';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { kMeansRestarts } from '../stats/k-means-restarts';
+import { pairwiseDistances } from '../stats/pairwise-distances';
 import { silhouette } from '../stats/silhouette';
 import { responseFeatures, type FeatureSegment } from './response-features';
 
@@ -85,6 +86,8 @@ export function clusterUnits(recording: Recording, params: Parameters): UnitClus
   const scores = pca.predict(rows, { nComponents: nComp });
   const pts = new Float64Array(nUsed * nComp);
   for (let i = 0; i < nUsed; i++) for (let c = 0; c < nComp; c++) pts[i * nComp + c] = scores.get(i, c);
+  // Pairwise distances once for every k (4 n^2 bytes; skipped for very large populations).
+  const distances = nUsed <= 4000 ? pairwiseDistances(pts, nComp) : undefined;
   const byK: { k: number; mean: number }[] = [];
   let best: { k: number; mean: number; labels: Int32Array; widths: Float64Array } | null = null;
   for (let k = cp.kMin; k <= Math.min(cp.kMax, nUsed - 1); k++) {
@@ -94,7 +97,7 @@ export function clusterUnits(recording: Recording, params: Parameters): UnitClus
     } catch {
       continue; // every restart left a cluster empty (e.g. duplicate points): k not usable
     }
-    const s = silhouette(pts, nComp, fit.labels);
+    const s = silhouette(pts, nComp, fit.labels, distances);
     byK.push({ k, mean: s.mean });
     if (!best || s.mean > best.mean + 1e-12) best = { k, mean: s.mean, labels: fit.labels, widths: s.widths };
   }

@@ -13,3 +13,7 @@ export { jumpStep } from './jump-step';
 export { clusterStep } from './cluster-step';
 export { rampPlan, rampCounts, type RampPlan } from './ramp-plan';
 export { addEventCounts } from './add-event-counts';
+export { classifyProgressRamps, type ProgressRampClassification } from './classify-progress-ramps';
+export { progressRampUnit, type ProgressRampUnitResult } from './progress-ramp-unit';
+export { progressOccupancy } from './progress-occupancy';
+export { progressSpikeCounts } from './progress-spike-counts';

@@ -5,7 +5,7 @@ import { warpTemplate } from '../align/warp-template';
 import { warpedPsth } from '../align/warped-psth';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
-import { lowerBound } from '../align/lower-bound';
+import { addWindowCounts } from '../align/add-window-counts';
 import { selectEvents } from './select-events';
 
 /**
@@ -98,20 +98,10 @@ export function rampCounts(spikeTimes: Float64Array, plan: RampPlan, buffer?: Fl
     }
     // Same counts as binCounts, written into the caller's buffer (no allocation per unit).
     buffer.fill(0);
-    const n = spikeTimes.length;
+    let hint = 0;
     for (let k = 0; k < plan.times.length; k++) {
       const a = plan.times[k];
-      if (!Number.isFinite(a)) continue;
-      const lo = a + plan.startS;
-      const hi = lo + nBins * plan.binS;
-      const row = k * nBins;
-      for (let i = lowerBound(spikeTimes, lo); i < n; i++) {
-        const t = spikeTimes[i];
-        if (t >= hi) break;
-        let j = Math.floor((t - lo) / plan.binS);
-        if (j >= nBins) j = nBins - 1;
-        buffer[row + j]++;
-      }
+      if (Number.isFinite(a)) hint = addWindowCounts(spikeTimes, a + plan.startS, plan.binS, nBins, buffer, k * nBins, hint);
     }
     return { counts: buffer };
   }

@@ -1,5 +1,6 @@
 import type { AnalysisStep } from '../pipeline/types';
 import type { Column } from '../table/types';
+import { classifyProgressRamps } from './classify-progress-ramps';
 import { classifyRamps } from './classify-ramps';
 import { columnSafe } from './column-safe';
 
@@ -9,6 +10,9 @@ import { columnSafe } from './column-safe';
  * slopes (ramp_slope_<condition>_hz_per_s) and, for conditions other than the
  * reference, ramp_diff_<condition>_p. Without reward events every unit is
  * `flat` with the reason and empty numbers.
+ * With ramp.progressVariable set, the ramp over that behavioural variable
+ * follows (classifyProgressRamps): progress_ramp, progress_ramp_slope_hz_per_unit,
+ * progress_ramp_p, progress_ramp_q, progress_ramp_reason and the rest.
  */
 export const rampStep: AnalysisStep = {
   name: 'ramp',
@@ -54,6 +58,29 @@ export const rampStep: AnalysisStep = {
         });
       }
     }
+    const pr = classifyProgressRamps(recording, rp);
+    if (pr) {
+      const v = pr.variable;
+      const pnum = (name: string, description: string, pick: (i: number) => number, digits = 6): Column => ({
+        name,
+        kind: 'number',
+        values: Float64Array.from(recording.units, (_, i) => (pr.units.length > 0 ? pick(i) : NaN)),
+        digits,
+        description,
+      });
+      columns.push(
+        { name: 'progress_ramp', kind: 'string', values: pr.verdict, description: `Ramp over the behavioural variable "${v}": up, down or flat (BH q < ${rp.alpha})` },
+        pnum('progress_ramp_slope_hz_per_unit', `Occupancy-weighted least-squares slope of the trial-pooled rate over "${v}", Hz per unit of ${v}`, (i) => pr.units[i].slopeHzPerUnit),
+        pnum('progress_ramp_p', 'Two-sided Wilcoxon signed-rank p of the per-trial slopes over the variable', (i) => pr.units[i].p),
+        pnum('progress_ramp_q', 'Benjamini-Hochberg adjustment of progress_ramp_p across all units', (i) => pr.q[i]),
+        { name: 'progress_ramp_reason', kind: 'string', values: pr.reason, description: 'Why the progress ramp verdict was given' },
+        pnum('progress_ramp_n_trials', 'Trials with a slope over the variable (at least two occupied bins)', (i) => pr.units[i].nTrials),
+        pnum('progress_ramp_mean_rate_hz', 'Spikes / time inside the variable range in the ramp windows, Hz', (i) => pr.units[i].meanRateHz),
+        pnum('progress_ramp_glm_slope_per_unit', `Poisson GLM slope of log rate per unit of ${v} (offset log occupancy)`, (i) => pr.units[i].glmSlopePerUnit),
+        pnum('progress_ramp_glm_lrt_p', 'Poisson GLM likelihood-ratio p (assumes Poisson counts)', (i) => pr.units[i].glmLrtP),
+        pnum('progress_ramp_glm_dispersion', 'Pearson chi-square / df of the progress GLM (> 1: overdispersed)', (i) => pr.units[i].glmDispersion),
+      );
+    }
     const count = (v: string) => r.verdict.filter((x) => x === v).length;
     return {
       columns,
@@ -70,6 +97,23 @@ export const rampStep: AnalysisStep = {
         down: count('down'),
         flat: count('flat'),
         conditions: r.conditions.map((c) => ({ condition: c.condition, trials: c.nTrials })),
+        ...(pr
+          ? {
+              progress: {
+                variable: pr.variable,
+                windows: pr.nWindows,
+                note: pr.note,
+                range: pr.range,
+                rangeSource: pr.rangeSource,
+                bins: pr.centres.length,
+                binWidth: pr.binWidth,
+                timeInRangeS: pr.occupiedS,
+                up: pr.verdict.filter((x) => x === 'up').length,
+                down: pr.verdict.filter((x) => x === 'down').length,
+                flat: pr.verdict.filter((x) => x === 'flat').length,
+              },
+            }
+          : {}),
       },
       warnings:
         r.nTrials === 0 && recording.units.length > 0

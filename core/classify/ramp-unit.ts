@@ -1,7 +1,4 @@
-import { chiSquareSf } from '../stats/distributions';
-import { linearFit } from '../stats/linear-fit';
-import { poissonGlm } from '../stats/poisson-glm';
-import { wilcoxonSignedRank } from '../stats/wilcoxon-signed-rank';
+import { countTables, equalExposureSums, rampSummary, TABLE_SIZE } from './ramp-sums';
 
 /** Ramp statistics of one unit over one set of aligned trials. */
 export interface RampUnitResult {
@@ -71,11 +68,13 @@ export function rampUnit(
 ): RampUnitResult {
   const nBins = centresS.length;
   const trialSlopes = new Float64Array(nTrials);
-  const s1 = new Float64Array(nBins); // sum of counts
-  const se = new Float64Array(nBins); // sum of exposure
-  const sq = new Float64Array(nBins); // sum of count^2 / exposure
-  const sr = new Float64Array(nBins); // sum of per-trial rates
-  const sr2 = new Float64Array(nBins); // sum of squared per-trial rates
+  // Per-bin sums as plain arrays (allocated on the JS heap: typed arrays this
+  // size each cost an external allocation, which adds up over units x conditions).
+  const s1: number[] = new Array<number>(nBins).fill(0); // sum of counts
+  const se: number[] = new Array<number>(nBins).fill(0); // sum of exposure
+  const sq: number[] = new Array<number>(nBins).fill(0); // sum of count^2 / exposure
+  const sr: number[] = new Array<number>(nBins).fill(0); // sum of per-trial rates
+  const sr2: number[] = new Array<number>(nBins).fill(0); // sum of squared per-trial rates
   let total = 0;
   let totalE = 0;
   let mx = 0;
@@ -85,97 +84,59 @@ export function rampUnit(
   for (let j = 0; j < nBins; j++) sxx += (centresS[j] - mx) ** 2;
   let sjj = 0;
   for (let j = 0; j < nBins; j++) sjj += (j - (nBins - 1) / 2) ** 2;
-  const rate = new Float64Array(nBins);
-  for (let k = 0; k < nTrials; k++) {
-    const row = k * nBins;
-    let my = 0;
-    for (let j = 0; j < nBins; j++) {
-      const c = counts[row + j];
-      const e = exposureS ? exposureS[row + j] : binS;
-      const r = e > 0 ? c / e : 0;
-      rate[j] = r;
-      my += r;
-      s1[j] += c;
-      se[j] += e;
-      if (e > 0) sq[j] += (c * c) / e;
-      sr[j] += r;
-      sr2[j] += r * r;
-      total += c;
-      totalE += e;
-    }
-    my /= nBins;
-    if (exposureS) {
+  if (exposureS) {
+    const rate = new Float64Array(nBins);
+    for (let k = 0; k < nTrials; k++) {
+      const row = k * nBins;
+      let my = 0;
+      for (let j = 0; j < nBins; j++) {
+        const c = counts[row + j];
+        const e = exposureS[row + j];
+        const r = e > 0 ? c / e : 0;
+        rate[j] = r;
+        my += r;
+        s1[j] += c;
+        se[j] += e;
+        if (e > 0) sq[j] += (c * c) / e;
+        sr[j] += r;
+        sr2[j] += r * r;
+        total += c;
+        totalE += e;
+      }
+      my /= nBins;
       let sxy = 0;
       for (let j = 0; j < nBins; j++) sxy += (centresS[j] - mx) * (rate[j] - my);
       trialSlopes[k] = sxy / sxx;
-    } else {
-      // Equal bins: integer weights 2j - (nBins - 1) keep the numerator exact, so
-      // trials whose slopes are equal in exact arithmetic tie exactly (ties matter to ranks).
+    }
+  } else {
+    // Equal bins of binS: only non-zero counts change the sums (adding +0 leaves
+    // a sum as it is), so empty bins are skipped; the exposure sums are the same
+    // for every unit. Same operations in the same order as a dense pass.
+    const e = binS;
+    // c / e and c^2 / e for small counts, computed once (the same divisions, so the same values).
+    const tab = countTables(e);
+    for (let k = 0; k < nTrials; k++) {
+      const row = k * nBins;
+      // Integer weights 2j - (nBins - 1) keep the numerator exact, so trials
+      // whose slopes are equal in exact arithmetic tie exactly (ties matter to ranks).
       let w = 0;
-      for (let j = 0; j < nBins; j++) w += (2 * j - (nBins - 1)) * counts[row + j];
+      for (let j = 0; j < nBins; j++) {
+        const c = counts[row + j];
+        if (c === 0) continue;
+        const small = c < TABLE_SIZE && e > 0;
+        const r = small ? tab.rate[c] : e > 0 ? c / e : 0;
+        s1[j] += c;
+        if (e > 0) sq[j] += small ? tab.square[c] : (c * c) / e;
+        sr[j] += r;
+        sr2[j] += r * r;
+        total += c;
+        w += (2 * j - (nBins - 1)) * c;
+      }
       trialSlopes[k] = w / (2 * binS * binS * sjj);
     }
+    const sums = equalExposureSums(binS, nTrials, nBins);
+    se.fill(sums.perBin);
+    totalE = sums.total;
   }
-  const meanRate = new Float64Array(nBins);
-  const semRate = new Float64Array(nBins);
-  for (let j = 0; j < nBins; j++) {
-    meanRate[j] = se[j] > 0 ? s1[j] / se[j] : NaN;
-    const m = sr[j] / nTrials;
-    const v = nTrials > 1 ? (sr2[j] - nTrials * m * m) / (nTrials - 1) : NaN;
-    semRate[j] = Math.sqrt(Math.max(0, v) / nTrials);
-  }
-  const meanRateHz = nTrials > 0 && totalE > 0 ? total / totalE : NaN;
-  const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate) : null;
-  const third = Math.max(1, Math.floor(nBins / 3));
-  let early = 0;
-  let late = 0;
-  for (let j = 0; j < third; j++) {
-    early += meanRate[j];
-    late += meanRate[nBins - 1 - j];
-  }
-  const test = nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
-
-  let glmSlopePerS = NaN;
-  let glmLrtP = NaN;
-  let glmDispersion = NaN;
-  if (nTrials > 0 && total > 0 && nBins >= 2) {
-    const X = new Float64Array(nBins * 2);
-    const offset = new Float64Array(nBins);
-    for (let j = 0; j < nBins; j++) {
-      X[2 * j] = 1;
-      X[2 * j + 1] = centresS[j] - mx;
-      offset[j] = Math.log(se[j]);
-    }
-    const g = poissonGlm(X, 2, s1, { offset });
-    if (g.converged) {
-      glmSlopePerS = g.coefficients[1];
-      glmLrtP = chiSquareSf(Math.max(0, g.nullDeviance - g.deviance), 1);
-      let x2 = 0;
-      for (let j = 0; j < nBins; j++) {
-        const lambda = g.fitted[j] / se[j];
-        x2 += sq[j] / lambda - 2 * s1[j] + lambda * se[j];
-      }
-      const df = nTrials * nBins - 2;
-      glmDispersion = df > 0 ? x2 / df : NaN;
-    }
-  }
-  return {
-    nTrials,
-    meanRateHz,
-    slopeHzPerS: fit ? fit.slope : NaN,
-    slopeRelPerS: fit && meanRateHz > 0 ? fit.slope / meanRateHz : NaN,
-    r2: fit ? fit.r2 : NaN,
-    lateEarlyRatio: early > 0 ? late / early : NaN,
-    trialSlopes,
-    p: test ? test.p : NaN,
-    direction: test ? test.direction : 0,
-    statistic: test ? test.statistic : NaN,
-    nNonZero: test ? test.n : 0,
-    glmSlopePerS,
-    glmLrtP,
-    glmDispersion,
-    meanRate,
-    semRate,
-    interceptHz: fit ? fit.intercept : NaN,
-  };
+  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE }, centresS, minTrials, exactMaxN);
 }

@@ -1,4 +1,4 @@
-import { lowerBound } from '../align/lower-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 
 /**
  * Mean firing rate of one unit as a function of time-in-trial over a set of
@@ -9,6 +9,12 @@ import { lowerBound } from '../align/lower-bound';
  * Each grid bin's rate averages only the trials still running then
  * (time-in-trial < stop - start); where no trial covers a bin the integral
  * becomes NaN from there on, and windows reaching it give NaN.
+ *
+ * Many units in a row: pass the same `scratch` each time; its buffers are
+ * reused (a 1 ms grid over seconds is tens of kilobytes, and allocating them
+ * per unit cost more than the counting), and the profile returned stays
+ * valid until the next call with that scratch. Trials in order of start time
+ * walk the spike train once (each search starts where the previous trial ended).
  */
 export interface ReferenceProfile {
   /** Mean rate (Hz) over time-in-trial [a, b), NaN when not covered. */
@@ -21,16 +27,43 @@ export interface ReferenceProfile {
   addBins(a: number, binS: number, nBins: number, scale: number, out: Float64Array): boolean;
 }
 
+/** Reusable buffers of referenceProfile (start with empty arrays; they grow as needed). */
+export interface ReferenceProfileScratch {
+  count: Float64Array;
+  cover: Float64Array;
+  integral: Float64Array;
+}
+
 export function referenceProfile(
   spikeTimes: ArrayLike<number>,
   starts: ArrayLike<number>,
   stops: ArrayLike<number>,
   lengthS: number,
   resolutionS = 0.001,
+  scratch?: ReferenceProfileScratch,
 ): ReferenceProfile {
   const nGrid = Math.max(1, Math.ceil(lengthS / resolutionS));
-  const count = new Float64Array(nGrid);
-  const cover = new Float64Array(nGrid + 1);
+  let count: Float64Array;
+  let cover: Float64Array;
+  let integral: Float64Array;
+  if (scratch) {
+    if (scratch.count.length < nGrid) {
+      scratch.count = new Float64Array(nGrid);
+      scratch.cover = new Float64Array(nGrid + 1);
+      scratch.integral = new Float64Array(nGrid + 1);
+    }
+    count = scratch.count.subarray(0, nGrid);
+    cover = scratch.cover.subarray(0, nGrid + 1);
+    integral = scratch.integral.subarray(0, nGrid + 1);
+    count.fill(0);
+    cover.fill(0);
+    integral[0] = 0;
+  } else {
+    count = new Float64Array(nGrid);
+    cover = new Float64Array(nGrid + 1);
+    integral = new Float64Array(nGrid + 1);
+  }
+  let hint = 0;
   for (let r = 0; r < starts.length; r++) {
     const s = starts[r];
     const len = Math.min(lengthS, stops[r] - s);
@@ -39,17 +72,18 @@ export function referenceProfile(
     cover[0] += 1;
     cover[covered] -= 1;
     const end = s + covered * resolutionS;
-    for (let i = lowerBound(spikeTimes, s); i < spikeTimes.length && spikeTimes[i] < end; i++) {
+    let i = lowerBoundNear(spikeTimes, s, hint);
+    for (; i < spikeTimes.length && spikeTimes[i] < end; i++) {
       const j = Math.floor((spikeTimes[i] - s) / resolutionS);
       if (j < covered) count[j]++;
     }
+    hint = i;
   }
   // Cumulative integral of the mean rate (spikes per trial), NaN once coverage ends.
-  const integral = new Float64Array(nGrid + 1);
   let c = 0;
   for (let j = 0; j < nGrid; j++) {
     c += cover[j];
-    const add = c > 0 ? count[j] / c : NaN;
+    const add = c > 0 ? (count[j] === 0 ? 0 : count[j] / c) : NaN; // 0 / c = 0: most grid bins are empty
     integral[j + 1] = integral[j] + add;
   }
   return {

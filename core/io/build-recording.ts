@@ -23,7 +23,8 @@
  *    ~1000 (the classic unit slip);
  *  - laser pulses (onset, or onset + duration) outside the recording span.
  * Warnings (counted): unsorted spikes, duplicate spike times, units without
- * spikes.
+ * spikes. Behavioural samples: buildBehaviour's checks, and they must overlap
+ * the span (they do not extend it).
  *
  * Span (DESIGN.md section 4): [span.startS ?? 0, span.stopS ?? latest time in
  * any input (spike, pulse end, event, trial stop)].
@@ -40,6 +41,7 @@ import { InputError } from '../errors';
 import type { Events, Pulses, RawSource, Recording, Scalar, Trials, Unit, Warning } from '../model/types';
 import { emptyEvents, emptyPulses, emptyTrials } from '../model/empty';
 import { assignTrains } from './assign-trains';
+import { buildBehaviour, type BehaviourColumns } from './build-behaviour';
 import { spikePieces, type SpikePieces } from './spike-pieces';
 
 /** Where a table's i-th record sits in its file, for messages. */
@@ -129,6 +131,8 @@ export interface RecordingTables {
   readonly pulses?: PulseColumns;
   readonly events?: EventColumns;
   readonly trials?: TrialColumns;
+  /** Sampled behavioural variables (checked by buildBehaviour). */
+  readonly behaviour?: BehaviourColumns;
   /** Explicit span limits (null = from the inputs) and where they came from. */
   readonly span?: {
     readonly startS: number | null;
@@ -421,6 +425,23 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     warnings.push({ code: 'units-without-spikes', file: info?.file, count: empty, message: `${empty} unit(s) listed in ${info?.file ?? 'the inputs'} have no spikes; they are kept with a rate of 0 Hz` });
   }
 
+  let behaviour;
+  if (t.behaviour) {
+    const b = buildBehaviour(t.behaviour);
+    const bt = b.samples.time;
+    if (bt[bt.length - 1] < start || bt[0] > stop) {
+      throw new InputError({
+        file: t.behaviour.file,
+        column: t.behaviour.columns.time,
+        value: `${bt[0]} to ${bt[bt.length - 1]}`,
+        problem: `the behavioural samples do not overlap the recording [${start}, ${stop}] s${scaleHint(bt[0] / stop)}`,
+        fix: 'check that behaviour and spikes share one clock and one time unit ("time_unit" in the behaviour section of session.json)',
+      });
+    }
+    behaviour = b.samples;
+    warnings.push(...b.warnings);
+  }
+
   const recording: Recording = {
     units,
     pulses: t.pulses ? buildPulses(t.pulses) : emptyPulses(),
@@ -430,6 +451,7 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     spanSource,
     waveformSampleRateHz: t.waveforms ? t.waveforms.sampleRateHz : NaN,
     ...(t.raw ? { raw: t.raw } : {}),
+    ...(behaviour ? { behaviour } : {}),
   };
   return { recording, warnings };
 }

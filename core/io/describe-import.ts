@@ -93,6 +93,11 @@ export function describeImport(r: ImportResult): string {
     const cov = Object.keys(tr.covariates);
     if (cov.length) out.push(`  covariates: ${cov.join(', ')}`);
   }
+  if (rec.behaviour) {
+    const b = rec.behaviour;
+    const m = b.time.length;
+    out.push(`Behaviour: ${n(m)} samples, ${s(b.time[0])} to ${s(b.time[m - 1])} s (median interval ${s(medianStep(b.time) * 1000)} ms); variables: ${[...b.variables.keys()].join(', ')}`);
+  }
   if (rec.raw) {
     const r2 = rec.raw;
     out.push(`Raw voltage: ${r2.file}, ${r2.channelCount} channels at ${s(r2.sampleRateHz)} Hz, ${n(r2.frameCount)} frames (${duration(r2.frameCount / r2.sampleRateHz)}) from ${s(r2.startS)} s, ${s(r2.gainUvPerBit)} uV per bit`);
@@ -120,4 +125,14 @@ function duration(sec: number): string {
   if (sec < 120) return `${Number(sec.toPrecision(4))} s`;
   if (sec < 7200) return `${(sec / 60).toFixed(1)} min`;
   return `${(sec / 3600).toFixed(2)} h`;
+}
+
+/** Median interval between consecutive sorted times (NaN with fewer than two). */
+function medianStep(t: Float64Array): number {
+  if (t.length < 2) return NaN;
+  const d = new Float64Array(t.length - 1);
+  for (let i = 1; i < t.length; i++) d[i - 1] = t[i] - t[i - 1];
+  d.sort();
+  const h = d.length >> 1;
+  return d.length % 2 ? d[h] : (d[h - 1] + d[h]) / 2;
 }

@@ -2,8 +2,8 @@
  * Imports a session folder (DESIGN.md section 3, README "Input formats") from
  * any SessionSource: reads session.json if present, the spike table (CSV/TSV
  * or spikes.npy + units.npy), laser pulses (pulses.csv or a laser trace
- * laser.npy), events, trials, unit info, mean waveforms and the raw voltage
- * file; converts times to seconds; hashes every file it reads (SHA-256, as it
+ * laser.npy), events, trials, sampled behaviour (behaviour.csv), unit info,
+ * mean waveforms and the raw voltage file; converts times to seconds; hashes every file it reads (SHA-256, as it
  * streams); and hands the typed columns to buildRecording for validation.
  *
  * The same code runs in Node (CLI, Electron main) and in the browser.
@@ -22,6 +22,7 @@ import { createRawSource } from './create-raw-source';
 import { createSha256, type Sha256 } from './create-sha256';
 import { decodeUtf8 } from './decode-utf8';
 import { detectLaserPulses } from './detect-laser-pulses';
+import type { BehaviourColumns } from './build-behaviour';
 import type { ImportResult, InputFileRecord } from './import-result';
 import { npyToFloat64 } from './npy-to-float64';
 import { parseManifest, type SessionManifest, type TableSection, type TimeUnit } from './parse-manifest';
@@ -46,6 +47,7 @@ const DEFAULT_FILES = {
   events: ['events.csv', 'events.tsv'],
   trials: ['trials.csv', 'trials.tsv'],
   unitInfo: ['unit_info.csv', 'unit_info.tsv'],
+  behaviour: ['behaviour.csv', 'behaviour.tsv'],
 } as const;
 
 export async function importSession(source: SessionSource, options: ImportOptions = {}): Promise<ImportResult> {
@@ -98,6 +100,16 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
       warnings.push({ code: 'ignored-columns', file, count: table.ignored.length, message: `${file}: column(s) not used: ${table.ignored.join(', ')}` });
     }
     return table;
+  };
+  /** The header names of a delimited file (reads up to its first line break). */
+  const headerOf = async (file: string): Promise<readonly string[]> => {
+    const parser = createDelimitedParser({ file, columns: [], keepExtra: true });
+    for await (const chunk of source.stream(file)) {
+      const nl = chunk.indexOf(10);
+      parser.push(nl >= 0 ? chunk.subarray(0, nl + 1) : chunk);
+      if (nl >= 0) break;
+    }
+    return parser.finish().header;
   };
   const pick = (section: TableSection | null | undefined, defaults: readonly string[], key: string): string | null => {
     if (section === null) return null;
@@ -321,6 +333,26 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     };
   }
 
+  // ---- sampled behavioural variables ------------------------------------------------
+  let behaviour: BehaviourColumns | undefined;
+  const behaviourFile = pick(manifest.behaviour, DEFAULT_FILES.behaviour, 'behaviour');
+  if (behaviourFile) {
+    const B = manifest.behaviour ?? undefined;
+    const tName = col(B, 'time');
+    // Every column but time is a numeric variable: read the header line first, so that
+    // the parser converts them as numbers while streaming (kept as text, a 1 kHz tracking
+    // file would cost a string per cell) and names the row of any value that is not one.
+    const header = await headerOf(behaviourFile);
+    const names = header.filter((h) => h !== tName && h !== '');
+    const t = await readTable(behaviourFile, [
+      { name: tName, kind: 'number', required: true },
+      ...names.map((name) => ({ name, kind: 'number' as const, required: true })),
+    ]);
+    const time = t.numbers.get(tName)!;
+    toSeconds(time, unitOf(B), behaviourFile, 'behaviour.time_unit');
+    behaviour = { file: behaviourFile, rowOf: t.rowOf, columns: { time: tName }, time, variables: new Map(names.map((n) => [n, t.numbers.get(n)!])) };
+  }
+
   // ---- unit info and waveforms ---------------------------------------------------------
   let unitInfo: UnitInfoColumns | undefined;
   const infoFile = pick(manifest.unitInfo, DEFAULT_FILES.unitInfo, 'unit_info');
@@ -366,6 +398,7 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     ...(pulses ? { pulses } : {}),
     ...(events ? { events } : {}),
     ...(trials ? { trials } : {}),
+    ...(behaviour ? { behaviour } : {}),
     ...(span ? { span } : {}),
     toleranceS: parameters.span.toleranceS,
     ...(raw ? { raw } : {}),

@@ -33,6 +33,8 @@ export interface SessionManifest {
   readonly events?: TableSection | null;
   readonly trials?: TableSection | null;
   readonly unitInfo?: TableSection | null;
+  /** Sampled behavioural variables (behaviour.csv). */
+  readonly behaviour?: TableSection | null;
   readonly waveforms?: { readonly file: string; readonly sampleRateHz: number } | null;
   readonly laser?: {
     readonly file: string;
@@ -66,6 +68,7 @@ export const TABLE_COLUMNS = {
   events: ['time', 'event', 'trial', 'kind'],
   trials: ['trial', 'start', 'stop', 'condition'],
   unit_info: ['unit'],
+  behaviour: ['time'],
 } as const;
 
 const TIME_UNITS: readonly string[] = ['s', 'ms', 'samples'];
@@ -148,7 +151,7 @@ export function parseManifest(text: string, file = 'session.json'): SessionManif
   };
 
   const root = obj(json, '(top level)');
-  only(root, '', ['description', 'time_unit', 'sample_rate', 'spikes', 'pulses', 'laser', 'events', 'trials', 'unit_info', 'waveforms', 'raw', 'nwb', 'parameters']);
+  only(root, '', ['description', 'time_unit', 'sample_rate', 'spikes', 'pulses', 'laser', 'events', 'trials', 'unit_info', 'behaviour', 'waveforms', 'raw', 'nwb', 'parameters']);
   const m: { -readonly [K in keyof SessionManifest]: SessionManifest[K] } = {};
   if (root.description !== undefined) m.description = str(root.description, 'description');
   if (root.time_unit !== undefined) m.timeUnit = unit(root.time_unit, 'time_unit');
@@ -169,7 +172,7 @@ export function parseManifest(text: string, file = 'session.json'): SessionManif
       m.pulses = { ...t, ...(o.train_max_ipi_s !== undefined ? { trainMaxIpiS: pos(o.train_max_ipi_s, 'pulses.train_max_ipi_s') } : {}) };
     }
   }
-  for (const k of ['events', 'trials', 'unit_info'] as const) {
+  for (const k of ['events', 'trials', 'unit_info', 'behaviour'] as const) {
     if (root[k] === undefined) continue;
     const v = root[k] === null ? null : table(root[k], k);
     if (k === 'unit_info') m.unitInfo = v;

@@ -68,6 +68,19 @@ export interface Trials {
   readonly covariates: Readonly<Record<string, Float64Array | readonly string[]>>;
 }
 
+/**
+ * Sampled behavioural variables (behaviour.csv): position, progress through
+ * the approach, speed... One time base, any sampling rate (irregular
+ * allowed), sorted, no duplicate times; one finite value per sample per
+ * variable. Between samples a variable is read by linear interpolation.
+ */
+export interface BehaviourSamples {
+  /** Sample times, s, strictly increasing. */
+  readonly time: Float64Array;
+  /** Variable name (the file's column header) -> value per sample, in the file's column order. */
+  readonly variables: ReadonlyMap<string, Float64Array>;
+}
+
 /** One imported recording session. */
 export interface Recording {
   readonly units: readonly Unit[];
@@ -82,6 +95,8 @@ export interface Recording {
   readonly waveformSampleRateHz: number;
   /** Raw extracellular voltage, when the session names a raw binary file. */
   readonly raw?: RawSource;
+  /** Sampled behavioural variables, when the session has behaviour.csv. */
+  readonly behaviour?: BehaviourSamples;
   /**
    * Descriptive session metadata from the inputs, if any (for run.json and
    * reports): e.g. from an NWB file nwb_version, identifier,

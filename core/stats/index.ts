@@ -8,3 +8,5 @@ export { poissonGlm, type PoissonGlmFit, type PoissonGlmOptions } from './poisso
 export { spearman, type SpearmanResult } from './spearman';
 export { silhouette } from './silhouette';
 export { kMeansRestarts, type KMeansFit } from './k-means-restarts';
+export { pairwiseDistances } from './pairwise-distances';
+export { sortWithIndex } from './sort-with-index';

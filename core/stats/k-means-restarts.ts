@@ -35,8 +35,12 @@ export function kMeansRestarts(points: ArrayLike<number>, dim: number, k: number
   let best: { labels: Int32Array; ss: number; seed: number } | null = null;
   for (let r = 0; r < restarts; r++) {
     const s = seed + r;
-    const res = kmeans(rows, k, { initialization: 'kmeans++', seed: s, maxIterations: 300, tolerance: 1e-12 });
-    const labels = Int32Array.from(res.clusters);
+    // ml-kmeans seeds the k-means++ starts and runs the first Lloyd step; the
+    // remaining steps run here on typed arrays (lloydSteps: the library's own
+    // step, same arithmetic in the same order, so the same partition, without
+    // its per-step allocations).
+    const res = kmeans(rows, k, { initialization: 'kmeans++', seed: s, maxIterations: 1, tolerance: TOLERANCE });
+    const labels = res.converged ? Int32Array.from(res.clusters) : lloydSteps(points, dim, n, k, res.centroids, MAX_ITERATIONS - 1);
     const { ss, sizes } = withinSs(points, dim, labels, k);
     if (sizes.some((c) => c === 0)) continue;
     if (!best || ss < best.ss - 1e-12 * Math.abs(best.ss)) best = { labels, ss, seed: s };
@@ -57,6 +61,67 @@ export function kMeansRestarts(points: ArrayLike<number>, dim: number, k: number
   for (let i = 0; i < n; i++) labels[i] = map[raw[i]];
   const { ss, sizes, centres } = withinSs(points, dim, labels, k);
   return { labels, centres, sizes, withinSs: ss, restarts, bestSeed: best.seed };
+}
+
+const MAX_ITERATIONS = 300;
+const TOLERANCE = 1e-12;
+
+/**
+ * Lloyd iterations as ml-kmeans 7 performs them (lib/utils.js): assign each
+ * point to the centre with the smallest squared Euclidean distance (first
+ * one on ties, strict <, starting from Number.MAX_VALUE), recompute centres
+ * as member means summed in point order (an empty cluster keeps its centre),
+ * stop when no centre moved by more than TOLERANCE (squared distance) or
+ * after maxSteps steps. Returns the assignment of the last step.
+ */
+function lloydSteps(points: ArrayLike<number>, dim: number, n: number, k: number, start: number[][], maxSteps: number): Int32Array {
+  let C = new Float64Array(k * dim);
+  for (let c = 0; c < k; c++) for (let t = 0; t < dim; t++) C[c * dim + t] = start[c][t];
+  let N = new Float64Array(k * dim);
+  const count = new Int32Array(k);
+  const labels = new Int32Array(n);
+  for (let step = 0; step < maxSteps; step++) {
+    for (let i = 0; i < n; i++) {
+      let best = -1;
+      let minD = Number.MAX_VALUE;
+      const o = i * dim;
+      for (let c = 0; c < k; c++) {
+        let d = 0;
+        const oc = c * dim;
+        for (let t = 0; t < dim; t++) {
+          const diff = points[o + t] - C[oc + t];
+          d += diff * diff;
+        }
+        if (d < minD) {
+          minD = d;
+          best = c;
+        }
+      }
+      labels[i] = best;
+    }
+    N.fill(0);
+    count.fill(0);
+    for (let i = 0; i < n; i++) {
+      const c = labels[i];
+      count[c]++;
+      for (let t = 0; t < dim; t++) N[c * dim + t] += points[i * dim + t];
+    }
+    for (let c = 0; c < k; c++) for (let t = 0; t < dim; t++) N[c * dim + t] = count[c] ? N[c * dim + t] / count[c] : C[c * dim + t];
+    let converged = true;
+    for (let c = 0; c < k && converged; c++) {
+      let d = 0;
+      for (let t = 0; t < dim; t++) {
+        const diff = N[c * dim + t] - C[c * dim + t];
+        d += diff * diff;
+      }
+      if (d > TOLERANCE) converged = false;
+    }
+    const old = C;
+    C = N;
+    N = old;
+    if (converged) break;
+  }
+  return labels;
 }
 
 function withinSs(points: ArrayLike<number>, dim: number, labels: Int32Array, k: number): { ss: number; sizes: Int32Array; centres: Float64Array } {

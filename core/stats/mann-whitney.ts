@@ -1,5 +1,5 @@
 import { normalCdf } from './distributions';
-import { midRanks } from './mid-ranks';
+import { sortWithIndex } from './sort-with-index';
 
 export interface RankSumResult {
   /** W = sum of the ranks of y in the pooled sample (Hollander & Wolfe's statistic). */
@@ -32,21 +32,45 @@ export interface RankSumResult {
  * section 4.1 and the p. 69 example (W = 35, one-sided p = 382/3003).
  */
 export function mannWhitney(x: ArrayLike<number>, y: ArrayLike<number>, exactMaxN = 50): RankSumResult {
-  const xs: number[] = [];
-  const ys: number[] = [];
-  for (let i = 0; i < x.length; i++) if (x[i] === x[i]) xs.push(x[i]);
-  for (let i = 0; i < y.length; i++) if (y[i] === y[i]) ys.push(y[i]);
-  const nX = xs.length;
-  const nY = ys.length;
+  let nX = 0;
+  let nY = 0;
+  for (let i = 0; i < x.length; i++) if (x[i] === x[i]) nX++;
+  for (let j = 0; j < y.length; j++) if (y[j] === y[j]) nY++;
   if (nX === 0 || nY === 0) {
     return { rankSumY: NaN, uX: NaN, nX, nY, p: NaN, pXGreater: NaN, pXLess: NaN, method: 'normal' };
   }
-  const pooled = new Float64Array(nX + nY);
-  for (let i = 0; i < nX; i++) pooled[i] = xs[i];
-  for (let j = 0; j < nY; j++) pooled[nX + j] = ys[j];
-  const { ranks, tieSum } = midRanks(pooled);
+  // Sort each sample, then merge: a run of equal values at pooled positions
+  // pos+1 .. pos+t has mid-rank pos + (t + 1) / 2, of which x holds a values.
+  // (Sums of half-integers are exact, so rx equals the sum of x's mid-ranks.)
+  const buf = scratch(nX + nY);
+  const xs = buf.values.subarray(0, nX);
+  const ys = buf.values.subarray(nX, nX + nY);
+  for (let i = 0, k = 0; i < x.length; i++) if (x[i] === x[i]) xs[k++] = x[i];
+  for (let j = 0, k = 0; j < y.length; j++) if (y[j] === y[j]) ys[k++] = y[j];
+  sortWithIndex(buf.values, buf.index, 0, nX);
+  sortWithIndex(buf.values, buf.index, nX, nX + nY);
   let rx = 0;
-  for (let i = 0; i < nX; i++) rx += ranks[i];
+  let tieSum = 0;
+  let pos = 0;
+  let i = 0;
+  let j = 0;
+  while (i < nX || j < nY) {
+    const v = i < nX && (j >= nY || xs[i] <= ys[j]) ? xs[i] : ys[j];
+    let a = 0;
+    let b = 0;
+    while (i < nX && xs[i] === v) {
+      a++;
+      i++;
+    }
+    while (j < nY && ys[j] === v) {
+      b++;
+      j++;
+    }
+    const t = a + b;
+    rx += a * (pos + (t + 1) / 2);
+    if (t > 1) tieSum += t * t * t - t;
+    pos += t;
+  }
   const nn = nX + nY;
   const rankSumY = (nn * (nn + 1)) / 2 - rx;
   const uX = rx - (nX * (nX + 1)) / 2;
@@ -99,4 +123,11 @@ export function mannWhitney(x: ArrayLike<number>, y: ArrayLike<number>, exactMax
     p = Math.min(1, 2 * Math.min(pXLess, pXGreater));
   }
   return { rankSumY, uX, nX, nY, p, pXGreater, pXLess, method };
+}
+
+/** Sort buffers reused across calls (thousands of tests per session; not re-entrant, nothing escapes). */
+let buffers = { values: new Float64Array(0), index: new Int32Array(0) };
+function scratch(n: number): { values: Float64Array; index: Int32Array } {
+  if (buffers.values.length < n) buffers = { values: new Float64Array(2 * n), index: new Int32Array(2 * n) };
+  return buffers;
 }

@@ -4,7 +4,7 @@ import { DEFAULTS } from '../../../core/defaults';
 
 describe('classification defaults', () => {
   it('ramp', () => {
-    expect(DEFAULTS.ramp).toEqual({ event: 'reward', windowStartS: -3, windowEndS: 0, condition: 'standard', binS: 0.1, alpha: 0.05, minTrials: 6, exactMaxN: 30, anchorEvent: '' });
+    expect(DEFAULTS.ramp).toEqual({ event: 'reward', windowStartS: -3, windowEndS: 0, condition: 'standard', binS: 0.1, alpha: 0.05, minTrials: 6, exactMaxN: 30, anchorEvent: '', progressVariable: '', progressBins: 10, progressMin: null, progressMax: null });
   });
   it('jump', () => {
     expect(DEFAULTS.jump).toEqual({

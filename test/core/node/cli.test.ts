@@ -66,6 +66,7 @@ const BAD: [string, Record<string, string>, string[], RegExp][] = [
   ['beyond the span', { ...GOOD, 'session.json': '{"parameters": {"span": {"stopS": 6}}}' }, [], /^spikes\.csv, row 6, column "time": time 7\.25 s lies beyond the recording span \[0, 6\] s set by session\.json \(tolerance 1 s\)/],
   ['unknown parameter in --config', GOOD, ['--config', 'CONFIG'], /^analysis\.json, column "light\.windowEnd": unknown parameter/],
   ['event trial unknown to trials', { ...GOOD, 'events.csv': 'time,event,trial\n2,reward,9\n' }, [], /^events\.csv, row 2, column "trial": trial 9 is not in trials\.csv/],
+  ['behaviour: repeated sample time', { ...GOOD, 'behaviour.csv': 'time,progress\n0,0\n1,0.5\n1,0.6\n' }, [], /^behaviour\.csv, row 4, column "time": two samples share this time \(also row 3\)/],
   ['no session', {}, [], /^.*nowhere: no such file or folder/],
   ['unknown option', GOOD, ['--outt', 'x'], /^tagbench run: unknown option \(value "--outt"\)/],
 ];

@@ -8,6 +8,11 @@
 import { describe, expect, it } from 'vitest';
 import { chiSquareSf, poissonGlm } from '../../../core/stats';
 import { close } from '../../helpers/close';
+import { loadFixture } from '../../helpers/fixtures';
+
+const offsetCases = loadFixture<{ X: number[]; p: number; y: number[]; exposure: number[]; coefficients: number[]; deviance: number; nullDeviance: number }>(
+  'stats/poisson-offset.json',
+);
 
 const counts = [18, 17, 15, 20, 10, 20, 25, 13, 12];
 const outcome = [1, 2, 3, 1, 2, 3, 1, 2, 3];
@@ -76,5 +81,33 @@ describe('poissonGlm', () => {
     const f = poissonGlm(X, 2, [1, 2, 3]);
     expect(f.converged).toBe(false);
     expect(f.coefficients[0]).toBeNaN();
+  });
+
+  // Offset log(exposure) (the progress ramp's occupancy). Source: SciPy 1.17
+  // scipy.optimize.minimize (BFGS) of the same likelihood, fixture
+  // test/fixtures/stats/poisson-offset.json (generator make_poisson_offset.py
+  // beside it). Tolerance 1e-6 absolute on coefficients (the optimiser stops at
+  // gradient 1e-12, far below; IRLS converges to 1e-10 relative deviance) and
+  // 1e-8 relative on deviances.
+  it.each(offsetCases.cases.map((c, i) => [i, c] as const))('offset log(exposure): SciPy case %i', (_i, c) => {
+    const f = poissonGlm(new Float64Array(c.X), c.p, c.y, { offset: c.exposure.map(Math.log) });
+    expect(f.converged).toBe(true);
+    c.coefficients.forEach((b, k) => close(f.coefficients[k], b, 0, 1e-6, `b${k}`));
+    close(f.deviance, c.deviance, 1e-8, 1e-10, 'deviance');
+    close(f.nullDeviance, c.nullDeviance, 1e-10, 1e-12, 'null deviance');
+  });
+
+  it('offset with one binary covariate: the MLE is the ratio of count per exposure (closed form)', () => {
+    // Poisson rate MLE = total count / total exposure in each group (definition
+    // of the MLE; e.g. Dobson & Barnett 2008, section on Poisson regression with
+    // exposure, from memory), so b0 = ln(r0) and b1 = ln(r1 / r0).
+    const X = new Float64Array([1, 0, 1, 0, 1, 1, 1, 1, 1, 1]);
+    const y = [3, 7, 20, 14, 9];
+    const e = [2, 4.5, 3, 2.5, 1.5];
+    const f = poissonGlm(X, 2, y, { offset: e.map(Math.log) });
+    const r0 = 10 / 6.5;
+    const r1 = 43 / 7;
+    close(f.coefficients[0], Math.log(r0), 1e-10);
+    close(f.coefficients[1], Math.log(r1 / r0), 1e-10);
   });
 });
