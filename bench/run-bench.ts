@@ -9,7 +9,9 @@
  *   - import of the CSV form and of the NPY form (s, M rows/s);
  *   - every step of the run pipeline (core/pipeline/steps.ts), timed alone;
  *   - PSTHs of every unit on every reward (10 ms bins, [-3, 1) s);
- *   - the full `run` on the NPY form in a fresh process (wall time, peak RSS),
+ *   - the full `run` on the NPY form in a fresh process (wall time, peak RSS: the
+ *     child's own, read from /proc/self/status, since getrusage's maxRSS of a
+ *     forked child includes this parent's memory; see bench/peak-rss.ts),
  *     against the targets: <= 3 s, CSV >= 5 M rows/s, peak < 3x the input.
  * --profile also writes a V8 CPU profile of the full run (node --cpu-prof)
  * and prints its top functions by self time. Then, unless --core-only, it

@@ -1,9 +1,11 @@
 /**
  * Child process of the benchmark: runs `tagbench run <session> --out <dir>`
- * in process, then prints one JSON line {runMs, cpuMs, maxRssBytes, heapUsedBytes}.
+ * in process, then prints one JSON line {runMs, cpuMs, maxRssBytes, heapUsedBytes}
+ * (maxRssBytes: this process's own peak, see peak-rss.ts).
  * Usage: node --import tsx bench/run-child.ts <session> <out>
  */
 import { runCommand } from '../core/node/commands/run';
+import { peakRssBytes } from './peak-rss';
 
 const [session, out] = process.argv.slice(2);
 const t0 = performance.now();
@@ -13,4 +15,4 @@ const runMs = performance.now() - t0;
 const cpu = process.cpuUsage(c0);
 const cpuMs = (cpu.user + cpu.system) / 1000;
 if (code !== 0) process.exit(code);
-console.log(JSON.stringify({ runMs, cpuMs, maxRssBytes: process.resourceUsage().maxRSS * 1024, heapUsedBytes: process.memoryUsage().heapUsed }));
+console.log(JSON.stringify({ runMs, cpuMs, maxRssBytes: peakRssBytes(), heapUsedBytes: process.memoryUsage().heapUsed }));

@@ -17,8 +17,10 @@
  *  - times beyond the recording span by more than `toleranceS`; with an
  *    explicit span, any time past span stop + tolerance; with a span taken
  *    from the inputs, one file ending over SCALE_RATIO times later than all
- *    others. Both say "looks like milliseconds labelled as seconds" when the
- *    overshoot is a factor of ~1000 (the classic unit slip);
+ *    others (unless it is the spike file and the units' median rate is at
+ *    least PLAUSIBLE_MEDIAN_RATE_HZ: then a warning). Both say "looks like
+ *    milliseconds labelled as seconds" when the overshoot is a factor of
+ *    ~1000 (the classic unit slip);
  *  - laser pulses (onset, or onset + duration) outside the recording span.
  * Warnings (counted): unsorted spikes, duplicate spike times, units without
  * spikes. Behavioural samples: buildBehaviour's checks, and they must overlap
@@ -29,8 +31,10 @@
  *
  * Unit order: the unit-info table's order when given, otherwise ids in natural
  * order (numeric ids numerically, "2" before "10"; others by code point).
- * Spikes are grouped with a counting sort (O(n)) into one Float64Array; each
- * unit's spikeTimes is a view of it, sorted. Events are sorted by time,
+ * Spikes are read in pieces (SpikePieces: whole arrays, CSV row blocks, .npy
+ * pieces), twice: unit codes alone, then codes and times. They are grouped
+ * with a counting sort (O(n)) into one Float64Array, the only full-length
+ * array made here; each unit's spikeTimes is a view of it, sorted. Events are sorted by time,
  * trials by start, pulses by onset (ties keep file order).
  */
 import { InputError } from '../errors';
@@ -38,6 +42,7 @@ import type { Events, Pulses, RawSource, Recording, Scalar, Trials, Unit, Warnin
 import { emptyEvents, emptyPulses, emptyTrials } from '../model/empty';
 import { assignTrains } from './assign-trains';
 import { buildBehaviour, type BehaviourColumns } from './build-behaviour';
+import { spikePieces, type SpikePieces } from './spike-pieces';
 
 /** Where a table's i-th record sits in its file, for messages. */
 export interface Located {
@@ -47,16 +52,27 @@ export interface Located {
   readonly rowOf?: (index: number) => number;
 }
 
-export interface SpikeColumns extends Located {
+interface SpikeColumnsBase extends Located {
   /** Column names as in the user's file, for messages. */
   readonly columns: { readonly unit: string; readonly time: string };
-  /** Distinct unit ids; unit[i] indexes this list. */
+  /** Distinct unit ids; unit codes index this list. */
   readonly unitIds: readonly string[];
+}
+
+/** Spikes as two whole arrays (NWB, tests). */
+export interface SpikeArrays extends SpikeColumnsBase {
   /** Unit code of each spike (index into unitIds). */
   readonly unit: Int32Array;
   /** Spike time, s, any order. */
   readonly time: Float64Array;
 }
+
+/** Spikes in pieces (CSV row blocks, .npy read piece by piece): see spike-pieces.ts. */
+export interface SpikePieceColumns extends SpikeColumnsBase {
+  readonly pieces: SpikePieces;
+}
+
+export type SpikeColumns = SpikeArrays | SpikePieceColumns;
 
 export interface UnitInfoColumns extends Located {
   readonly columns: { readonly unit: string };
@@ -130,8 +146,16 @@ export interface RecordingTables {
   readonly raw?: RawSource;
 }
 
-/** Files whose latest time exceeds every other file's by more than this factor are rejected. */
+/** Files whose latest time exceeds every other file's by more than this factor are rejected (but see PLAUSIBLE_MEDIAN_RATE_HZ). */
 export const SCALE_RATIO = 300;
+/**
+ * When the spike file is the one running long, a median unit rate of at least
+ * this (Hz, over [span start, last spike]) is taken as proof the spike times
+ * are seconds, and the session is accepted with a warning. Our choice: sorted
+ * units below 0.1 Hz median are rare, while milliseconds read as seconds put
+ * a 5 Hz unit at 0.005 Hz.
+ */
+export const PLAUSIBLE_MEDIAN_RATE_HZ = 0.1;
 
 export function buildRecording(t: RecordingTables): { recording: Recording; warnings: Warning[] } {
   const warnings: Warning[] = [];
@@ -142,10 +166,55 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
 
   // ---- value checks: finite, not negative -------------------------------
   const s = t.spikes;
-  if (s.time.length === 0) {
+  const pieces = 'pieces' in s ? s.pieces : spikePieces([s.unit], [s.time]);
+  const n = pieces.length;
+  if (n === 0) {
     throw new InputError({ file: s.file, problem: 'the spike table has no rows', fix: 'export at least one spike (one row per spike: unit, time)' });
   }
-  checkTimes(s, s.columns.time, s.time, minTime);
+  // Pass 1 (unit codes only): spikes per unit code and each code's first record.
+  const nCodes = s.unitIds.length;
+  const codeCount = new Float64Array(nCodes);
+  const firstOf = new Float64Array(nCodes).fill(-1);
+  pieces.forEachUnit((unit, first) => {
+    for (let i = 0; i < unit.length; i++) {
+      const c = unit[i];
+      if (!(c >= 0 && c < nCodes)) throw new Error(`spike ${first + i}: unit code ${c} out of range`); // reader bug
+      if (codeCount[c]++ === 0) firstOf[c] = first + i;
+    }
+  });
+  // Pass 2: check every time (in file order, so the first bad row is named),
+  // note the latest time and spikes that come before their unit's previous
+  // one, and group the spikes by unit code (a counting sort, stable: file order
+  // is kept within a unit, so sorted inputs need no sort). One Float64Array
+  // holds every spike; each unit's spikeTimes is a view of its code's range.
+  const codeStart = new Float64Array(nCodes + 1);
+  for (let c = 0; c < nCodes; c++) codeStart[c + 1] = codeStart[c] + codeCount[c];
+  const all = new Float64Array(n);
+  const at = n < 2 ** 31 ? Int32Array.from(codeStart.subarray(0, nCodes)) : codeStart.slice(0, nCodes);
+  const lastT = new Float64Array(nCodes).fill(-Infinity);
+  let unsorted = 0;
+  let maxT = -Infinity;
+  let maxAt = -1;
+  pieces.forEach((unit, time, first) => {
+    checkTimes(s, s.columns.time, time, minTime, first);
+    for (let i = 0; i < time.length; i++) {
+      const c = unit[i];
+      const x = time[i];
+      if (x < lastT[c]) unsorted++;
+      lastT[c] = x;
+      if (x > maxT) {
+        maxT = x;
+        maxAt = first + i;
+      }
+      all[at[c]++] = x;
+    }
+  }, true);
+  for (let c = 0; c < nCodes; c++) {
+    if (at[c] !== codeStart[c + 1]) {
+      // the two visits disagreed: the reader saw other data the second time
+      throw new InputError({ file: s.file, problem: 'the spike table changed while it was being read', fix: 'wait until the files are completely written, then import again' });
+    }
+  }
   if (t.pulses) {
     checkTimes(t.pulses, t.pulses.columns.onset, t.pulses.onset, minTime);
     if (t.pulses.duration) checkOptional(t.pulses, t.pulses.columns.duration!, t.pulses.duration, 'a duration');
@@ -157,10 +226,9 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
   }
 
   // ---- unit ids across files --------------------------------------------
-  const nCodes = s.unitIds.length;
   const emptyId = s.unitIds.indexOf('');
-  if (emptyId >= 0) {
-    throw new InputError({ ...where(s, s.unit.indexOf(emptyId)), column: s.columns.unit, problem: 'the unit id is empty', fix: 'give every spike its unit' });
+  if (emptyId >= 0 && codeCount[emptyId] > 0) {
+    throw new InputError({ ...where(s, firstOf[emptyId]), column: s.columns.unit, problem: 'the unit id is empty', fix: 'give every spike its unit' });
   }
   let unitOrder: string[];
   const codeToUnit = new Int32Array(nCodes);
@@ -176,9 +244,8 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     for (let c = 0; c < nCodes; c++) {
       const r = rowOfId.get(s.unitIds[c]);
       if (r === undefined) {
-        const first = s.unit.indexOf(c);
         throw new InputError({
-          ...where(s, first),
+          ...where(s, firstOf[c]),
           column: s.columns.unit,
           value: s.unitIds[c],
           problem: `unit "${s.unitIds[c]}" has spikes but is not listed in ${info.file}`,
@@ -189,7 +256,12 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     }
     unitOrder = [...info.ids];
   } else {
-    const sorted = s.unitIds.map((id, c) => ({ id, c })).sort((a, b) => naturalCompare(a.id, b.id));
+    // (an empty id without spikes comes from a blank CSV line: not a unit)
+    const sorted = s.unitIds
+      .map((id, c) => ({ id, c }))
+      .filter(({ id, c }) => id !== '' || codeCount[c] > 0)
+      .sort((a, b) => naturalCompare(a.id, b.id));
+    codeToUnit.fill(-1);
     sorted.forEach(({ c }, k) => (codeToUnit[c] = k));
     unitOrder = sorted.map((x) => x.id);
   }
@@ -220,7 +292,7 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     }
     if (k >= 0) extents.push({ file: loc.file, column, maxS: m, index: k, located: loc });
   };
-  pushExtent(s, s.columns.time, s.time);
+  if (maxAt >= 0) extents.push({ file: s.file, column: s.columns.time, maxS: maxT, index: maxAt, located: s });
   if (t.pulses) pushExtent(t.pulses, t.pulses.columns.onset, t.pulses.onset, t.pulses.duration);
   if (t.events) pushExtent(t.events, t.events.columns.time, t.events.time);
   if (t.trials) pushExtent(t.trials, t.trials.columns.stop, t.trials.stop);
@@ -252,7 +324,24 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     if (extents.length >= 2) {
       const top = extents.reduce((a, b) => (b.maxS > a.maxS ? b : a));
       const others = Math.max(...extents.filter((e) => e !== top).map((e) => e.maxS));
-      if (others > 0 && top.maxS > SCALE_RATIO * others) {
+      // Spikes running long after short pulses/events are a real design too (a brief light block
+      // at the start, no task): a unit slip in the spike file also divides every unit's apparent
+      // rate by ~1000 (ms) or more (samples), so a plausible median rate in seconds lets it pass.
+      const rates: number[] = [];
+      if (others > 0 && top.maxS > SCALE_RATIO * others && top.located === s) {
+        for (let c = 0; c < nCodes; c++) if (codeCount[c] > 0) rates.push(codeCount[c] / (top.maxS - start));
+        rates.sort((a, b) => a - b);
+      }
+      const medianRate = rates.length ? rates[(rates.length - 1) >> 1] : NaN;
+      if (others > 0 && top.maxS > SCALE_RATIO * others && medianRate >= PLAUSIBLE_MEDIAN_RATE_HZ) {
+        const ends = extents.filter((e) => e !== top).map((e) => `${e.file} by ${round(e.maxS)} s`).join(', ');
+        warnings.push({
+          code: 'inputs-end-early',
+          file: top.file,
+          count: 1,
+          message: `spike times run to ${round(top.maxS)} s but ${ends}; accepted as seconds because the units' median rate over that span (${round(medianRate)} Hz) is plausible (spike times in milliseconds would give rates ~1000x lower). If the other files should cover the whole recording, check their clock and time unit.`,
+        });
+      } else if (others > 0 && top.maxS > SCALE_RATIO * others) {
         const others = extents.filter((e) => e !== top).map((e) => `${e.file} by ${round(e.maxS)} s`).join(', ');
         throw new InputError({
           ...where(top.located, top.index),
@@ -282,34 +371,15 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
   }
   const nUnits = unitOrder.length;
 
-  // ---- group spikes per unit (counting sort) ------------------------------
-  const counts = new Float64Array(nUnits);
-  const n = s.time.length;
-  const lastT = new Float64Array(nUnits).fill(-Infinity);
-  let unsorted = 0;
-  for (let i = 0; i < n; i++) {
-    const c = s.unit[i];
-    if (!(c >= 0 && c < nCodes)) throw new Error(`spike ${i}: unit code ${c} out of range`); // reader bug
-    const u = codeToUnit[c];
-    counts[u]++;
-    const x = s.time[i];
-    if (x < lastT[u]) unsorted++;
-    lastT[u] = x;
-  }
-  const offsets = new Float64Array(nUnits + 1);
-  for (let u = 0; u < nUnits; u++) offsets[u + 1] = offsets[u] + counts[u];
-  const all = new Float64Array(n);
-  const fill = offsets.slice(0, nUnits);
-  for (let i = 0; i < n; i++) {
-    const u = codeToUnit[s.unit[i]];
-    all[fill[u]++] = s.time[i];
-  }
+  const codeOfUnit = new Int32Array(nUnits).fill(-1);
+  for (let c = 0; c < nCodes; c++) if (codeToUnit[c] >= 0) codeOfUnit[codeToUnit[c]] = c;
   let duplicates = 0;
   const unitsWithDuplicates = new Set<string>();
   let empty = 0;
   const units: Unit[] = [];
   for (let u = 0; u < nUnits; u++) {
-    const st = all.subarray(offsets[u], offsets[u + 1]);
+    const c = codeOfUnit[u];
+    const st = c >= 0 ? all.subarray(codeStart[c], codeStart[c + 1]) : all.subarray(0, 0);
     if (unsorted > 0) {
       for (let i = 1; i < st.length; i++) {
         if (st[i] < st[i - 1]) {
@@ -407,17 +477,19 @@ function scaleFix(ratio: number, file: string): string {
   return 'check the time unit and clock of this file';
 }
 
-function checkTimes(loc: Located, column: string, v: Float64Array, minTime: number): void {
+/** Checks times v (records first.. of the file): finite and not before minTime. */
+function checkTimes(loc: Located, column: string, v: Float64Array, minTime: number, first = 0): void {
   for (let i = 0; i < v.length; i++) {
     const x = v[i];
     if (x >= minTime && x !== Infinity) continue;
+    const row = first + i;
     if (x !== x || !Number.isFinite(x)) {
-      throw new InputError({ ...where(loc, i), column, value: String(x), problem: 'time is not a finite number', fix: 'remove the row or give a time in seconds' });
+      throw new InputError({ ...where(loc, row), column, value: String(x), problem: 'time is not a finite number', fix: 'remove the row or give a time in seconds' });
     }
     if (minTime === 0) {
-      throw new InputError({ ...where(loc, i), column, value: String(x), problem: 'time is negative', fix: 'times count from the start of the recording; shift them or set parameters.span.startS' });
+      throw new InputError({ ...where(loc, row), column, value: String(x), problem: 'time is negative', fix: 'times count from the start of the recording; shift them or set parameters.span.startS' });
     }
-    throw new InputError({ ...where(loc, i), column, value: String(x), problem: `time lies before the recording span (earliest allowed time: span start minus tolerance = ${minTime} s)`, fix: 'check parameters.span.startS and the clock of this file' });
+    throw new InputError({ ...where(loc, row), column, value: String(x), problem: `time lies before the recording span (earliest allowed time: span start minus tolerance = ${minTime} s)`, fix: 'check parameters.span.startS and the clock of this file' });
   }
 }
 

@@ -22,8 +22,9 @@
  * Columns not asked for are ignored, or (keepExtra) kept as text and turned
  * into Float64Array at finish() when every non-empty cell is a number.
  * Errors are InputErrors naming file, line (header = line 1), column, value.
- * Memory: the parsed columns (8 bytes per number, 4 per id code) plus one
- * partial record carried between chunks.
+ * Memory: the parsed columns (8 bytes per number; 2 per id code while a column
+ * has fewer than 65,536 distinct ids, else 4) plus one partial record carried
+ * between chunks.
  */
 import { InputError } from '../errors';
 import { decodeUtf8 } from './decode-utf8';
@@ -38,6 +39,12 @@ export interface ColumnSpec {
   readonly required: boolean;
   /** Number columns: empty cells become NaN (else an error). */
   readonly allowEmpty?: boolean;
+  /**
+   * Number and code columns: hand the column over as the parser's row blocks
+   * (table.pieces) instead of one joined array, so a long column is never
+   * copied (the spike table: buildRecording reads it piece by piece).
+   */
+  readonly pieces?: boolean;
 }
 
 export interface DelimitedSpec {
@@ -62,6 +69,11 @@ export interface DelimitedTable {
   readonly numbers: ReadonlyMap<string, Float64Array>;
   readonly codes: ReadonlyMap<string, CodeColumn>;
   readonly texts: ReadonlyMap<string, readonly string[]>;
+  /**
+   * Columns asked for with `pieces`: consecutive blocks of rows (every column's
+   * blocks have the same lengths), codes with their dictionary.
+   */
+  readonly pieces: ReadonlyMap<string, { readonly numbers?: Float64Array[]; readonly codes?: (Int32Array | Uint16Array)[]; readonly dictionary?: readonly string[] }>;
   /** Extra columns (keepExtra), in header order. */
   readonly extra: ReadonlyMap<string, Float64Array | readonly string[]>;
   /** Header names present in the file but not read. */
@@ -111,9 +123,9 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
   let allowEmpty: Uint8Array = new Uint8Array(0);
   let names: string[] = [];
   let numCols: (Float64Array | null)[] = [];
-  let codeCols: (Int32Array | null)[] = [];
+  let codeCols: (CodeBlock | null)[] = [];
   let numDone: Float64Array[][] = [];
-  let codeDone: Int32Array[][] = [];
+  let codeDone: CodeBlock[][] = [];
   let textCols: (string[] | null)[] = [];
   let dicts: { list: string[]; byString: Map<string, number>; small: Int32Array; byNumber: Map<number, number> }[] = [];
 
@@ -171,7 +183,8 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         numCols[i] = new Float64Array(BLOCK);
       } else if (kinds[i] === K_CODE) {
         if (codeCols[i]) codeDone[i].push(codeCols[i]!);
-        codeCols[i] = new Int32Array(BLOCK);
+        // 2 bytes per code while the dictionary has fewer than 65,536 ids (see widen)
+        codeCols[i] = dicts[i].list.length < 65536 ? new Uint16Array(BLOCK) : new Int32Array(BLOCK);
       } else if (kinds[i] === K_TEXT && !textCols[i]) textCols[i] = [];
     }
     if (capacity > 0) blockBase += BLOCK;
@@ -462,7 +475,9 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
             numCols[col]![row] = v as number;
           }
         } else if (kind === K_CODE) {
-          codeCols[col]![row] = intern(col, b, fieldStart, fieldEnd);
+          const code = intern(col, b, fieldStart, fieldEnd);
+          if (code > 65535 && codeCols[col] instanceof Uint16Array) codeCols[col] = Int32Array.from(codeCols[col]!); // widen this block
+          codeCols[col]![row] = code;
         } else if (kind === K_TEXT) {
           textCols[col]![rowCount] = decodeUtf8(b, fieldStart, fieldEnd);
         }
@@ -598,17 +613,30 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
       pos = q;
     }
     const stop = parseRecords(buf, pos, final);
-    leftover = stop < buf.length ? buf.slice(stop) : null;
+    if (stop >= buf.length) leftover = null;
+    else if (buf.buffer === work.buffer) {
+      // keep the partial record at the start of the work buffer (no new allocation)
+      work.copyWithin(0, buf.byteOffset + stop, buf.byteOffset + buf.length);
+      leftover = work.subarray(0, buf.length - stop);
+    } else leftover = buf.slice(stop);
   }
+
+  /** Reused buffer joining a partial record with the next chunk (grows to the largest chunk + record). */
+  let work = new Uint8Array(0);
 
   return {
     push(chunk: Uint8Array): void {
       if (chunk.length === 0) return;
       let buf: Uint8Array<ArrayBufferLike> = chunk;
       if (leftover) {
-        buf = new Uint8Array(leftover.length + chunk.length);
-        buf.set(leftover);
-        buf.set(chunk, leftover.length);
+        const L = leftover.length;
+        if (work.length < L + chunk.length) {
+          const w = new Uint8Array(Math.max(L + chunk.length, Math.ceil(work.length * 1.5)));
+          w.set(leftover);
+          work = w;
+        } else if (leftover.buffer !== work.buffer || leftover.byteOffset !== 0) work.set(leftover);
+        work.set(chunk, L);
+        buf = work.subarray(0, L + chunk.length);
         leftover = null;
       }
       feed(buf, false);
@@ -624,11 +652,16 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
       const codes = new Map<string, CodeColumn>();
       const texts = new Map<string, readonly string[]>();
       const extra = new Map<string, Float64Array | readonly string[]>();
+      const pieces = new Map<string, { numbers?: Float64Array[]; codes?: CodeBlock[]; dictionary?: readonly string[] }>();
       const wanted = new Set(spec.columns.map((c) => c.name));
+      const inPieces = new Set(spec.columns.filter((c) => c.pieces).map((c) => c.name));
       const ignored: string[] = [];
+      const last = rowCount - blockBase;
       names.forEach((name, i) => {
         const k = kinds[i];
-        if (k === K_NUMBER) numbers.set(name, join(new Float64Array(rowCount), numDone[i], numCols[i]!, rowCount - blockBase));
+        if (inPieces.has(name) && k === K_NUMBER) pieces.set(name, { numbers: blockList(numDone[i], numCols[i]!, last) });
+        else if (inPieces.has(name) && k === K_CODE) pieces.set(name, { codes: blockList<CodeBlock>(codeDone[i], codeCols[i]!, last), dictionary: dicts[i].list });
+        else if (k === K_NUMBER) numbers.set(name, join(new Float64Array(rowCount), numDone[i], numCols[i]!, rowCount - blockBase));
         else if (k === K_CODE) codes.set(name, { codes: join(new Int32Array(rowCount), codeDone[i], codeCols[i]!, rowCount - blockBase), dictionary: dicts[i].list });
         else if (k === K_TEXT) {
           const t = textCols[i]!;
@@ -652,6 +685,7 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         numbers,
         codes,
         texts,
+        pieces,
         extra,
         ignored,
         rowOf(index: number): number {
@@ -670,10 +704,13 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
 
 }
 
+/** A block of id codes: Uint16 while a column has fewer than 65,536 distinct ids, then Int32. */
+type CodeBlock = Uint16Array | Int32Array;
+
 /** Rows per column block. */
 const BLOCK = 1 << 16;
 
-function join<T extends Float64Array | Int32Array>(out: T, full: T[], last: T, lastRows: number): T {
+function join<T extends Float64Array | Int32Array>(out: T, full: (T | Uint16Array)[], last: T | Uint16Array, lastRows: number): T {
   let o = 0;
   for (const b of full) {
     out.set(b, o);
@@ -681,6 +718,11 @@ function join<T extends Float64Array | Int32Array>(out: T, full: T[], last: T, l
   }
   out.set(last.subarray(0, lastRows), o);
   return out;
+}
+
+/** The full blocks and the used part of the last one (no empty last block). */
+function blockList<T extends Float64Array | Int32Array | Uint16Array>(full: T[], last: T, lastRows: number): T[] {
+  return lastRows > 0 ? [...full, last.subarray(0, lastRows) as T] : full.slice();
 }
 
 function growScratch(a: Uint8Array, min: number): Uint8Array {

@@ -20,37 +20,46 @@ const K = new Int32Array([
   0x90befffa, 0xa4506ceb, 0xbef9a3f7, 0xc67178f2,
 ]);
 
-function compress(H: Int32Array, W: Int32Array, b: Uint8Array, off: number): void {
-  for (let t = 0; t < 16; t++) {
-    const i = off + 4 * t;
-    W[t] = (b[i] << 24) | (b[i + 1] << 16) | (b[i + 2] << 8) | b[i + 3];
+/**
+ * Compresses every whole 64-byte block of b[off, end) into H (FIPS 180-4,
+ * section 6.2.2). The working variables and the state stay in locals across
+ * blocks; W holds the message schedule.
+ */
+function compressBlocks(H: Int32Array, W: Int32Array, b: Uint8Array, off: number, end: number): void {
+  let h0 = H[0], h1 = H[1], h2 = H[2], h3 = H[3], h4 = H[4], h5 = H[5], h6 = H[6], h7 = H[7];
+  for (; off + 64 <= end; off += 64) {
+    for (let t = 0; t < 16; t++) {
+      const i = off + 4 * t;
+      W[t] = (b[i] << 24) | (b[i + 1] << 16) | (b[i + 2] << 8) | b[i + 3];
+    }
+    for (let t = 16; t < 64; t++) {
+      const x = W[t - 15];
+      const y = W[t - 2];
+      const s0 = ((x >>> 7) | (x << 25)) ^ ((x >>> 18) | (x << 14)) ^ (x >>> 3);
+      const s1 = ((y >>> 17) | (y << 15)) ^ ((y >>> 19) | (y << 13)) ^ (y >>> 10);
+      W[t] = (((W[t - 16] + s0) | 0) + ((W[t - 7] + s1) | 0)) | 0;
+    }
+    let a = h0, bb = h1, c = h2, d = h3, e = h4, f = h5, g = h6, h = h7;
+    for (let t = 0; t < 64; t++) {
+      const S1 = ((e >>> 6) | (e << 26)) ^ ((e >>> 11) | (e << 21)) ^ ((e >>> 25) | (e << 7));
+      const ch = (e & f) ^ (~e & g);
+      const t1 = (((((h + S1) | 0) + ((ch + K[t]) | 0)) | 0) + W[t]) | 0;
+      const S0 = ((a >>> 2) | (a << 30)) ^ ((a >>> 13) | (a << 19)) ^ ((a >>> 22) | (a << 10));
+      const maj = (a & bb) ^ (a & c) ^ (bb & c);
+      const t2 = (S0 + maj) | 0;
+      h = g;
+      g = f;
+      f = e;
+      e = (d + t1) | 0;
+      d = c;
+      c = bb;
+      bb = a;
+      a = (t1 + t2) | 0;
+    }
+    h0 = (h0 + a) | 0; h1 = (h1 + bb) | 0; h2 = (h2 + c) | 0; h3 = (h3 + d) | 0;
+    h4 = (h4 + e) | 0; h5 = (h5 + f) | 0; h6 = (h6 + g) | 0; h7 = (h7 + h) | 0;
   }
-  for (let t = 16; t < 64; t++) {
-    const x = W[t - 15];
-    const y = W[t - 2];
-    const s0 = ((x >>> 7) | (x << 25)) ^ ((x >>> 18) | (x << 14)) ^ (x >>> 3);
-    const s1 = ((y >>> 17) | (y << 15)) ^ ((y >>> 19) | (y << 13)) ^ (y >>> 10);
-    W[t] = (((W[t - 16] + s0) | 0) + ((W[t - 7] + s1) | 0)) | 0;
-  }
-  let a = H[0], bb = H[1], c = H[2], d = H[3], e = H[4], f = H[5], g = H[6], h = H[7];
-  for (let t = 0; t < 64; t++) {
-    const S1 = ((e >>> 6) | (e << 26)) ^ ((e >>> 11) | (e << 21)) ^ ((e >>> 25) | (e << 7));
-    const ch = (e & f) ^ (~e & g);
-    const t1 = (((((h + S1) | 0) + ((ch + K[t]) | 0)) | 0) + W[t]) | 0;
-    const S0 = ((a >>> 2) | (a << 30)) ^ ((a >>> 13) | (a << 19)) ^ ((a >>> 22) | (a << 10));
-    const maj = (a & bb) ^ (a & c) ^ (bb & c);
-    const t2 = (S0 + maj) | 0;
-    h = g;
-    g = f;
-    f = e;
-    e = (d + t1) | 0;
-    d = c;
-    c = bb;
-    bb = a;
-    a = (t1 + t2) | 0;
-  }
-  H[0] = (H[0] + a) | 0; H[1] = (H[1] + bb) | 0; H[2] = (H[2] + c) | 0; H[3] = (H[3] + d) | 0;
-  H[4] = (H[4] + e) | 0; H[5] = (H[5] + f) | 0; H[6] = (H[6] + g) | 0; H[7] = (H[7] + h) | 0;
+  H[0] = h0; H[1] = h1; H[2] = h2; H[3] = h3; H[4] = h4; H[5] = h5; H[6] = h6; H[7] = h7;
 }
 
 export function createSha256(): Sha256 {
@@ -73,10 +82,12 @@ export function createSha256(): Sha256 {
         fill += take;
         i = take;
         if (fill < 64) return;
-        compress(H, W, block, 0);
+        compressBlocks(H, W, block, 0, 64);
         fill = 0;
       }
-      for (; i + 64 <= n; i += 64) compress(H, W, bytes, i);
+      const whole = n - ((n - i) % 64);
+      compressBlocks(H, W, bytes, i, whole);
+      i = whole;
       if (i < n) {
         block.set(bytes.subarray(i), 0);
         fill = n - i;
@@ -89,7 +100,7 @@ export function createSha256(): Sha256 {
       block[fill++] = 0x80;
       if (fill > 56) {
         block.fill(0, fill);
-        compress(H, W, block, 0);
+        compressBlocks(H, W, block, 0, 64);
         fill = 0;
       }
       block.fill(0, fill, 56);
@@ -97,7 +108,7 @@ export function createSha256(): Sha256 {
       const lo = bits >>> 0;
       block[56] = hi >>> 24; block[57] = hi >>> 16; block[58] = hi >>> 8; block[59] = hi;
       block[60] = lo >>> 24; block[61] = lo >>> 16; block[62] = lo >>> 8; block[63] = lo;
-      compress(H, W, block, 0);
+      compressBlocks(H, W, block, 0, 64);
       let s = '';
       for (let k = 0; k < 8; k++) s += (H[k] >>> 0).toString(16).padStart(8, '0');
       return s;

@@ -9,7 +9,8 @@
  * The same code runs in Node (CLI, Electron main) and in the browser.
  * Errors are InputErrors naming file, row and column; nothing is written.
  * Delimited files stream chunk by chunk, so a 20-million-row spike table needs
- * its parsed columns (12 bytes per spike) plus one chunk, not its text.
+ * its parsed row blocks (10 bytes per spike while there are fewer than 65,536
+ * unit ids) plus one chunk, not its text; .npy spikes are read piece by piece.
  */
 import { DEFAULTS, type Parameters } from '../defaults';
 import { InputError } from '../errors';
@@ -26,7 +27,9 @@ import type { ImportResult, InputFileRecord } from './import-result';
 import { npyToFloat64 } from './npy-to-float64';
 import { parseManifest, type SessionManifest, type TableSection, type TimeUnit } from './parse-manifest';
 import { readNpy, type NpyArray } from './read-npy';
-import type { SessionSource } from './session-source';
+import { npySpikePieces } from './npy-spike-pieces';
+import type { RandomAccessFile, SessionSource } from './session-source';
+import { spikePieces } from './spike-pieces';
 
 export interface ImportOptions {
   /** Further parameter sources applied after session.json's (e.g. --config). */
@@ -48,6 +51,16 @@ const DEFAULT_FILES = {
 } as const;
 
 export async function importSession(source: SessionSource, options: ImportOptions = {}): Promise<ImportResult> {
+  const opened: RandomAccessFile[] = [];
+  try {
+    return await importFrom(source, options, opened);
+  } finally {
+    for (const f of opened) f.close?.();
+  }
+}
+
+/** importSession's work; files it opens for random access go into `opened` (closed by the caller). */
+async function importFrom(source: SessionSource, options: ImportOptions, opened: RandomAccessFile[]): Promise<ImportResult> {
   const makeHash = options.createHash ?? createSha256;
   const names = new Set(await source.list());
   const inputs: InputFileRecord[] = [];
@@ -65,6 +78,12 @@ export async function importSession(source: SessionSource, options: ImportOption
     h.update(bytes);
     inputs.push({ file, bytes: bytes.length, sha256: h.digestHex() });
     return bytes;
+  };
+  /** Random access to a file: the host's, or the whole file read once (and hashed by the caller). */
+  const randomAccess = async (file: string): Promise<RandomAccessFile> => {
+    if (source.openRandomAccess) return source.openRandomAccess(file);
+    const bytes = await source.readAll(file);
+    return { size: bytes.length, read: (offset, length) => bytes.subarray(offset, offset + length) };
   };
   const readTable = async (file: string, columns: ColumnSpec[], keepExtra = false): Promise<DelimitedTable> => {
     const parser = createDelimitedParser({ file, columns, keepExtra });
@@ -117,16 +136,18 @@ export async function importSession(source: SessionSource, options: ImportOption
   ];
   const parameters: Parameters = resolveParameters(parameterSources);
   const unitOf = (section: TableSection | null | undefined): TimeUnit => section?.timeUnit ?? manifest.timeUnit ?? 's';
-  const toSeconds = (v: Float64Array, unit: TimeUnit, file: string, key: string): void => {
-    if (unit === 's') return;
-    let f = 1e-3;
-    if (unit === 'samples') {
-      if (manifest.sampleRateHz === undefined) {
-        throw new InputError({ file: MANIFEST_FILE, column: key, problem: `${file} has times in samples but no "sample_rate" is given`, fix: 'add "sample_rate": <Hz> at the top level of session.json' });
-      }
-      f = 1 / manifest.sampleRateHz;
+  /** Seconds per time unit of a file (samples need session.json's sample_rate). */
+  const secondsPer = (unit: TimeUnit, file: string, key: string): number => {
+    if (unit === 's') return 1;
+    if (unit === 'ms') return 1e-3;
+    if (manifest.sampleRateHz === undefined) {
+      throw new InputError({ file: MANIFEST_FILE, column: key, problem: `${file} has times in samples but no "sample_rate" is given`, fix: 'add "sample_rate": <Hz> at the top level of session.json' });
     }
-    for (let i = 0; i < v.length; i++) v[i] *= f;
+    return 1 / manifest.sampleRateHz;
+  };
+  const toSeconds = (v: Float64Array, unit: TimeUnit, file: string, key: string): void => {
+    const f = secondsPer(unit, file, key);
+    if (f !== 1) for (let i = 0; i < v.length; i++) v[i] *= f;
   };
   const col = (section: TableSection | null | undefined, name: string) => section?.columns[name] ?? name;
 
@@ -141,6 +162,7 @@ export async function importSession(source: SessionSource, options: ImportOption
     });
   }
   let spikes: SpikeColumns;
+  let finishSpikes = () => {};
   const spikeUnit = unitOf(manifest.spikes);
   if (spikeFile.toLowerCase().endsWith('.npy')) {
     const unitsFile = manifest.spikes?.unitsFile ?? 'units.npy';
@@ -148,46 +170,41 @@ export async function importSession(source: SessionSource, options: ImportOption
     else if (!names.has(unitsFile)) {
       throw new InputError({ file: spikeFile, problem: 'spike times in .npy form need units.npy beside them (the unit of each spike)', fix: 'save units.npy, or name it in session.json as "spikes": {"units_file": ...}' });
     }
-    const tA = oneD(readNpy(await readWhole(spikeFile), spikeFile), spikeFile);
-    const uA = oneD(readNpy(await readWhole(unitsFile), unitsFile), unitsFile);
-    if (tA.shape[0] !== uA.shape[0]) {
-      throw new InputError({ file: unitsFile, problem: `holds ${uA.shape[0]} unit ids but ${spikeFile} holds ${tA.shape[0]} spike times`, fix: 'both arrays need one element per spike, in the same order' });
-    }
-    const isInt = !tA.dtype.startsWith('f');
-    let unit = manifest.spikes?.timeUnit ?? manifest.timeUnit;
-    if (unit === undefined) unit = isInt ? 'samples' : 's';
-    // integer sample counts are converted exactly (float64 holds integers to 2^53)
-    const time = Float64Array.from(npyToFloat64(tA, spikeFile));
-    toSeconds(time, unit, spikeFile, 'spikes.time_unit');
-    const uVals = npyToFloat64(uA, unitsFile);
-    const unitIds: string[] = [];
-    const codeOf = new Map<number, number>();
-    const codes = new Int32Array(uVals.length);
-    for (let i = 0; i < uVals.length; i++) {
-      const v = uVals[i];
-      let c = codeOf.get(v);
-      if (c === undefined) {
-        if (!Number.isInteger(v)) {
-          throw new InputError({ file: `${unitsFile}, element ${i} (0-based)`, value: String(v), problem: 'unit ids must be whole numbers', fix: 'save the unit of each spike as an integer array' });
-        }
-        c = unitIds.length;
-        codeOf.set(v, c);
-        unitIds.push(String(v));
-      }
-      codes[i] = c;
-    }
-    spikes = { file: spikeFile, columns: { unit: unitsFile, time: spikeFile }, unitIds, unit: codes, time };
+    // Both arrays are read piece by piece by offset, never whole: units.npy once
+    // in full first (hashed, ids coded), then buildRecording visits the pieces
+    // twice (unit codes alone, then both; spikes.npy is hashed on that visit).
+    const tRec = { file: spikeFile, bytes: 0, sha256: '' };
+    const uRec = { file: unitsFile, bytes: 0, sha256: '' };
+    inputs.push(tRec, uRec);
+    const tIn = { file: spikeFile, data: await randomAccess(spikeFile), hash: makeHash() };
+    const uIn = { file: unitsFile, data: await randomAccess(unitsFile), hash: makeHash() };
+    opened.push(tIn.data, uIn.data);
+    const npy = npySpikePieces(tIn, uIn, {
+      timeFactor: (h) => {
+        // integer sample counts are converted exactly (float64 holds integers to 2^53)
+        const unit = manifest.spikes?.timeUnit ?? manifest.timeUnit ?? (h.dtype.startsWith('f') ? 's' : 'samples');
+        return secondsPer(unit, spikeFile, 'spikes.time_unit');
+      },
+    });
+    Object.assign(uRec, { bytes: uIn.data.size, sha256: uIn.hash.digestHex() });
+    spikes = { file: spikeFile, columns: { unit: unitsFile, time: spikeFile }, unitIds: npy.unitIds, pieces: npy.pieces };
+    finishSpikes = () => {
+      if (!npy.timesHashed()) throw new Error('spikes.npy was not read in full'); // buildRecording visits every piece
+      Object.assign(tRec, { bytes: tIn.data.size, sha256: tIn.hash.digestHex() });
+    };
   } else {
     const uName = col(manifest.spikes, 'unit');
     const tName = col(manifest.spikes, 'time');
+    // the parser's row blocks go to buildRecording as they are (never joined into one copy)
     const t = await readTable(spikeFile, [
-      { name: uName, kind: 'code', required: true },
-      { name: tName, kind: 'number', required: true },
+      { name: uName, kind: 'code', required: true, pieces: true },
+      { name: tName, kind: 'number', required: true, pieces: true },
     ]);
-    const time = t.numbers.get(tName)!;
-    toSeconds(time, spikeUnit, spikeFile, 'spikes.time_unit');
-    const c = t.codes.get(uName)!;
-    spikes = { file: spikeFile, rowOf: t.rowOf, columns: { unit: uName, time: tName }, unitIds: c.dictionary, unit: c.codes, time };
+    const time = t.pieces.get(tName)!.numbers!;
+    const f = secondsPer(spikeUnit, spikeFile, 'spikes.time_unit');
+    if (f !== 1) for (const b of time) for (let i = 0; i < b.length; i++) b[i] *= f;
+    const c = t.pieces.get(uName)!;
+    spikes = { file: spikeFile, rowOf: t.rowOf, columns: { unit: uName, time: tName }, unitIds: c.dictionary!, pieces: spikePieces(c.codes!, time) };
   }
 
   // ---- laser pulses ------------------------------------------------------------
@@ -386,6 +403,7 @@ export async function importSession(source: SessionSource, options: ImportOption
     toleranceS: parameters.span.toleranceS,
     ...(raw ? { raw } : {}),
   });
+  finishSpikes();
   return {
     recording: built.recording,
     warnings: [...warnings, ...built.warnings],

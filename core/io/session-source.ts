@@ -22,4 +22,11 @@ export interface RandomAccessFile {
   readonly size: number;
   /** Up to `length` bytes from `offset` (fewer at the end of the file). */
   read(offset: number, length: number): Uint8Array;
+  /**
+   * Optional: fills `into` from `offset` (fewer bytes at the end of the file)
+   * and returns the count, so a reader can reuse one buffer (no allocation per read).
+   */
+  readInto?(offset: number, into: Uint8Array): number;
+  /** Optional: releases the file (Node: closes the descriptor). No read may follow. */
+  close?(): void;
 }

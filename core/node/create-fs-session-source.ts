@@ -2,8 +2,9 @@
  * The file-system SessionSource of the Node edge: a session folder read with
  * fs, never written. Streams files in 4 MiB chunks (fs.readSync into one
  * reused buffer: the parser copies what it keeps), reads .npy files whole,
- * and offers random access (fs.readSync by offset) for raw voltage files,
- * whose descriptor stays open for the life of the process.
+ * and offers random access (fs.readSync by offset, into a fresh or a given
+ * buffer) for raw voltage files and .npy spike arrays; the descriptor stays
+ * open until close() (raw voltage: for the life of the process).
  * Names may reach into subfolders ("sorting/spikes.csv") but never leave the
  * folder (checked again here, after the manifest check).
  */
@@ -69,6 +70,19 @@ export function createFsSessionSource(dir: string): SessionSource {
             got += k;
           }
           return got === n ? out : out.subarray(0, got);
+        },
+        readInto(offset: number, into: Uint8Array): number {
+          const n = Math.max(0, Math.min(into.length, size - offset));
+          let got = 0;
+          while (got < n) {
+            const k = readSync(fd, into, got, n - got, offset + got);
+            if (k <= 0) break;
+            got += k;
+          }
+          return got;
+        },
+        close(): void {
+          closeSync(fd);
         },
       };
     },

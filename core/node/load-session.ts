@@ -9,6 +9,9 @@
  *
  * In the folder case `inputs` lists session.json first, then the NWB file.
  *
+ * Hashing: unless options.createHash is given, every input is hashed with
+ * node:crypto (nodeSha256) from the bytes the importer reads, as it reads them.
+ *
  * Errors: InputError for a missing path, a file that is neither a folder nor
  * .nwb, and everything the importers report.
  */

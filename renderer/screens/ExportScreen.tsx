@@ -142,7 +142,7 @@ export function ExportScreen(props: {
               >
                 run.json
               </button>
-              <span className="muted">provenance of the tables: tool version, parameters, input files with SHA-256, warnings, analysis summaries, curation counts (the record `tagbench export` writes)</span>
+              <span className="muted">provenance of the tables: tool version, parameters, input files with SHA-256, warnings, analysis summaries, curation counts (the record the command line's export writes)</span>
             </li>
             <li>
               <button disabled={working} onClick={() => save(`${base}_report.html`, report, 'text/html')} data-testid="export-report">
@@ -161,6 +161,7 @@ export function ExportScreen(props: {
         <section className="panel">
           <h2>Figures</h2>
           <p className="muted small">Unit {unitId} (the unit selected in the Unit table) and the population. SVG for editing, PNG at twice the screen size.</p>
+          {figures.length === 0 && <p className="muted small">Preparing the figures...</p>}
           <ul className="export-list">
             {figures.map((f) => (
               <li key={f.name}>

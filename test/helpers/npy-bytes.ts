@@ -5,8 +5,14 @@
  * version, little-endian header length, a Python-dict header padded with
  * spaces to a multiple of 64 bytes and ending in "\n", then the data.
  */
-export function npyBytes(data: Float64Array | Int32Array | BigInt64Array | Int16Array, shape: number[] = [data.length]): Uint8Array {
-  const descr = data instanceof Float64Array ? '<f8' : data instanceof Int32Array ? '<i4' : data instanceof BigInt64Array ? '<i8' : '<i2';
+type NpyTyped = Float64Array | Float32Array | Int32Array | Uint32Array | BigInt64Array | BigUint64Array | Int16Array | Uint16Array | Int8Array | Uint8Array;
+const DESCR: [new (n: number) => NpyTyped, string][] = [
+  [Float64Array, '<f8'], [Float32Array, '<f4'], [Int32Array, '<i4'], [Uint32Array, '<u4'], [BigInt64Array, '<i8'],
+  [BigUint64Array, '<u8'], [Int16Array, '<i2'], [Uint16Array, '<u2'], [Int8Array, '|i1'], [Uint8Array, '|u1'],
+];
+
+export function npyBytes(data: NpyTyped, shape: number[] = [data.length]): Uint8Array {
+  const descr = DESCR.find(([C]) => data instanceof C)![1];
   const shapeText = shape.length === 1 ? `(${shape[0]},)` : `(${shape.join(', ')})`;
   let header = `{'descr': '${descr}', 'fortran_order': False, 'shape': ${shapeText}, }`;
   const total = 10 + header.length + 1;

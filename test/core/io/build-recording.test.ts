@@ -148,4 +148,24 @@ describe('buildRecording', () => {
     expect(recording.span).toEqual([0, 100]);
     expect(recording.spanSource).toBe('manifest');
   });
+
+  it('accepts spikes running long after a short light block when unit rates are plausible in seconds, with a warning', () => {
+    // 3 units at 0.5, 2 and 5 Hz over 3600 s (regular trains), pulses only in the first 10 s: ratio 360 > 300
+    const ids: string[] = [];
+    const times: number[] = [];
+    [0.5, 2, 5].forEach((hz, u) => {
+      for (let t = 0.1 + u * 0.01; t < 3600; t += 1 / hz) {
+        ids.push(String(u + 1));
+        times.push(t);
+      }
+    });
+    const pulses = { file: 'pulses.csv', rowOf, columns: { onset: 'onset' }, onset: Float64Array.from([1, 3, 5, 7, 9.99]) };
+    const { recording, warnings } = buildRecording(base(spikes(ids, times), { pulses }));
+    expect(recording.span[1]).toBeCloseTo(times.reduce((a, b) => Math.max(a, b)), 9);
+    const w = warnings.find((x) => x.code === 'inputs-end-early')!;
+    // median rate 2 Hz (the middle unit; spikes / (last spike - 0))
+    expect(w.message).toMatch(/^spike times run to 3599\.\d+ s but pulses\.csv by 9\.99 s; accepted as seconds because the units' median rate over that span \(2 Hz\) is plausible/);
+    // the same spikes in milliseconds (x1000): median 0.002 Hz, refused (the hint follows the ratio to the pulses)
+    expect(message(() => buildRecording(base(spikes(ids, times.map((t) => t * 1000)), { pulses })))).toMatch(/times run to 3599920 s, but pulses\.csv by 9\.99 s; this looks like .* labelled as seconds/);
+  });
 });

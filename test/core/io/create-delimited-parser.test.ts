@@ -139,6 +139,47 @@ describe('createDelimitedParser', () => {
     expect(t.rowOf(n - 1)).toBe(n + 1);
   });
 
+  it('hands columns over as row blocks equal to the joined columns, for every chunking', () => {
+    // the import path of the spike table (pieces: true) against the general path (joined arrays)
+    const PIECE_COLS: ColumnSpec[] = SPIKE_COLS.map((c) => ({ ...c, pieces: true }));
+    const flat = (t: DelimitedTable) => {
+      const u = t.pieces.get('unit')!;
+      const tm = t.pieces.get('time')!.numbers!;
+      expect(u.codes!.map((b) => b.length)).toEqual(tm.map((b) => b.length));
+      return { units: u.codes!.flatMap((b) => Array.from(b, (k) => u.dictionary![k])), times: tm.flatMap((b) => Array.from(b)) };
+    };
+    const n = 140_000; // three blocks of 65,536 rows, the last partial
+    const parts = ['\uFEFFunit,time\r\n'];
+    for (let i = 0; i < n; i++) parts.push(i % 1000 === 0 ? `"${i % 13}",${i}.25\r\n\r\n` : `${i % 13},${i * 3}e-3\r\n`);
+    const bytes = enc(parts.join(''));
+    const whole = parse(bytes);
+    for (const chunk of [0, 1 << 20, 65_537, 4093]) {
+      const t = parse(bytes, PIECE_COLS, chunk);
+      expect(t.numbers.size + t.codes.size).toBe(0);
+      expect(flat(t)).toEqual({ units: units(whole), times: times(whole) });
+      expect(t.rowOf(n - 1)).toBe(whole.rowOf(n - 1));
+    }
+    // small files, every chunking: CRLF, quotes, BOM, a chunk boundary inside a number
+    const text = '\uFEFF"unit",time\r\n"7",1.000000000000001\r\n\r\n8,2.5e-3\r\n"7",  3\r\n';
+    const small = parse(text);
+    for (let k = 1; k <= 12; k++) expect(flat(parse(text, PIECE_COLS, k))).toEqual({ units: units(small), times: times(small) });
+    const empty = parse('unit,time\n', PIECE_COLS);
+    expect(empty.pieces.get('time')!.numbers).toEqual([]);
+  });
+
+  it('keeps codes exact past 65,536 distinct ids (2-byte blocks widen to 4 bytes)', () => {
+    const n = 150_000; // ids 0..69,999 then repeats; the 65,537th id arrives inside the second block
+    const parts = ['unit,time\n'];
+    for (let i = 0; i < n; i++) parts.push(`${i < 70_000 ? i : i % 977},${i}\n`);
+    const bytes = enc(parts.join(''));
+    const PIECE_COLS: ColumnSpec[] = SPIKE_COLS.map((c) => ({ ...c, pieces: true }));
+    const want = Array.from({ length: n }, (_, i) => String(i < 70_000 ? i : i % 977));
+    expect(units(parse(bytes, SPIKE_COLS, 100_003))).toEqual(want);
+    const p = parse(bytes, PIECE_COLS, 100_003).pieces.get('unit')!;
+    expect(p.codes!.map((b) => b.constructor.name)).toEqual(['Uint16Array', 'Int32Array', 'Int32Array']);
+    expect(p.codes!.flatMap((b) => Array.from(b, (k) => p.dictionary![k]))).toEqual(want);
+  });
+
   it('header-only file gives zero rows', () => {
     expect(parse('unit,time\n').rowCount).toBe(0);
   });
