@@ -1,4 +1,4 @@
-import { gallopBound } from '../light/gallop-bound';
+import { gallopBound } from './gallop-bound';
 
 /**
  * lowerBound(sorted, x) (first index with sorted[i] >= x) searched from a

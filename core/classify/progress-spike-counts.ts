@@ -1,5 +1,5 @@
 import { lowerBoundNear } from '../align/lower-bound-near';
-import { gallopBound } from '../light/gallop-bound';
+import { gallopBound } from '../align/gallop-bound';
 
 /**
  * Spike counts of one unit by the value of a sampled variable at each spike:

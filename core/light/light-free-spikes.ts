@@ -1,4 +1,4 @@
-import { gallopBound } from './gallop-bound';
+import { gallopBound } from '../align/gallop-bound';
 
 /**
  * The spikes outside light-affected time (schedule.lightIntervals, merged and

@@ -1,5 +1,5 @@
 import { lowerBound } from '../align/lower-bound';
-import { gallopBound } from './gallop-bound';
+import { gallopBound } from '../align/gallop-bound';
 import { selectKth } from './select-kth';
 import { poissonSf } from '../stats/distributions/poisson';
 import type { Parameters } from '../defaults';

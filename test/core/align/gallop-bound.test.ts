@@ -1,7 +1,7 @@
 /** gallopBound must equal the lower bound found by plain binary search (core/align/lower-bound.ts) for every hint. */
 import { describe, expect, it } from 'vitest';
 import { lowerBound } from '../../../core/align/lower-bound';
-import { gallopBound } from '../../../core/light/gallop-bound';
+import { gallopBound } from '../../../core/align/gallop-bound';
 import { Rng } from '../../../core/random/rng';
 
 describe('gallopBound', () => {
