@@ -42,6 +42,15 @@ export async function ensureRendererBuild(root: string, log: (line: string) => v
   if (!isRendererBuildStale(root, buildDir)) return false;
   log('Building the workbench (production build, once per change)...');
   const { build } = await import('vite');
-  await build({ configFile: join(root, 'renderer', 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+  // Vite keeps an existing NODE_ENV; inside the test runner it is "test", which would bundle React's
+  // development build and development JSX. The build is always a production build.
+  const before = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ configFile: join(root, 'renderer', 'vite.config.ts'), logLevel: 'warn', mode: 'production' });
+  } finally {
+    if (before === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = before;
+  }
   return true;
 }

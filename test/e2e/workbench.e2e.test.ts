@@ -6,7 +6,7 @@
  * unit table and read it back. Screenshots of each screen go to
  * test-artifacts/e2e/.
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -46,6 +46,14 @@ describe.sequential('workbench in a real browser', () => {
   }, LONG * 2);
   afterAll(async () => {
     await wb?.close();
+  });
+
+  it("serves React's production build, even though the build ran inside the test runner (NODE_ENV=test)", () => {
+    const assets = join(ROOT, 'dist', 'renderer', 'assets');
+    const entry = readdirSync(assets).filter((f) => /^index-.*\.js$/.test(f));
+    expect(entry.length).toBe(1);
+    // React prints this notice only from its development build
+    expect(readFileSync(join(assets, entry[0]), 'utf8')).not.toContain('Download the React DevTools');
   });
 
   it('opens the bundled demo in one click and shows the session overview', async () => {
