@@ -1,3 +1,4 @@
+import type { CurationState } from '../curation/types';
 import type { Parameters } from '../defaults';
 import type { InputFileRecord } from '../io/import-result';
 import { summariseRecording } from '../model/summarise-recording';
@@ -11,6 +12,17 @@ export interface CurationSummary {
   readonly excluded: number;
   /** Curated unit ids that no longer exist in the data. */
   readonly orphans: readonly string[];
+}
+
+/** Counts of a curation, as run.json reports them. */
+function curationSummary(state: CurationState, orphans: readonly string[]): CurationSummary {
+  const cu = Object.values(state.units);
+  return {
+    unitsCurated: cu.length,
+    labels: cu.reduce((n, u) => n + Object.keys(u.labels).length, 0),
+    excluded: cu.filter((u) => u.include?.value === false).length,
+    orphans,
+  };
 }
 
 /** What every command that writes an output folder records in its run.json. */
@@ -32,7 +44,8 @@ export interface RunRecordInput {
   readonly warnings: readonly Warning[];
   /** Per-step session summaries of the analysis, keyed by step name. */
   readonly steps: Readonly<Record<string, unknown>>;
-  readonly curation?: CurationSummary;
+  /** The curation applied to `table`, and the curated ids not in the data (applyCuration's orphans). */
+  readonly curation?: { readonly state: CurationState; readonly orphans: readonly string[] };
   /** Things the user was told (inputs changed, backup used). */
   readonly notices?: readonly string[];
   /** Files written beside run.json. */
@@ -64,7 +77,7 @@ export function buildRunRecord(r: RunRecordInput): string {
     recording: (({ units, spikes, spanS, spanSource, pulses }) => ({ units, spikes, spanS, spanSource, pulses, events: r.recording.events.time.length, trials: r.recording.trials.trial.length }))(summariseRecording(r.recording)),
     warnings: r.warnings,
     steps: r.steps,
-    ...(r.curation ? { curation: r.curation } : {}),
+    ...(r.curation ? { curation: curationSummary(r.curation.state, r.curation.orphans) } : {}),
     notices: r.notices ?? [],
     outputs: r.outputs,
     columns: r.table.columns.map((c) => ({ name: c.name, description: c.description })),

@@ -163,8 +163,7 @@ export class WorkbenchEngine implements WorkbenchApi {
   }
 
   async runRecordText(r: RunRecordRequest): Promise<string> {
-    const cu = Object.values(r.curation.units);
-    const ids = new Set(this.need().units.map((u) => u.id));
+    const curated = applyCuration(this.needTable(), r.curation);
     return buildRunRecord({
       version: r.toolVersion,
       command: 'workbench export',
@@ -178,15 +177,10 @@ export class WorkbenchEngine implements WorkbenchApi {
       recording: this.need(),
       warnings: [...this.importWarnings, ...this.analysisWarnings],
       steps: this.summaries,
-      curation: {
-        unitsCurated: cu.length,
-        labels: cu.reduce((n, u) => n + Object.keys(u.labels).length, 0),
-        excluded: cu.filter((u) => u.include?.value === false).length,
-        orphans: Object.keys(r.curation.units).filter((id) => !ids.has(id)),
-      },
+      curation: { state: r.curation, orphans: curated.orphans },
       notices: r.notices,
       outputs: r.outputs,
-      table: applyCuration(this.needTable(), r.curation).table,
+      table: curated.table,
     });
   }
 

@@ -73,7 +73,6 @@ export function refuseInsideInputs(outAbs: string, opened: OpenedSession): void 
 
 /** run.json text for an output made from an opened (possibly curated) session. */
 export function provenanceOf(opened: OpenedSession, deps: SessionCommandDeps, command: string, outputs: readonly string[], startedAt: string): string {
-  const cu = Object.values(opened.curation.units);
   const src = resolve(opened.source);
   return buildRunRecord({
     version: deps.toolVersion,
@@ -88,12 +87,7 @@ export function provenanceOf(opened: OpenedSession, deps: SessionCommandDeps, co
     recording: opened.imported.recording,
     warnings: [...opened.imported.warnings, ...opened.analysis.warnings],
     steps: opened.analysis.summaries,
-    curation: {
-      unitsCurated: cu.length,
-      labels: cu.reduce((n, u) => n + Object.keys(u.labels).length, 0),
-      excluded: cu.filter((u) => u.include?.value === false).length,
-      orphans: opened.orphans,
-    },
+    curation: { state: opened.curation, orphans: opened.orphans },
     notices: opened.notices,
     outputs: outputs.filter((o) => o !== 'run.json'),
     table: opened.table,
