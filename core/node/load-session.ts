@@ -37,7 +37,9 @@ export async function loadSession(path: string, options: ImportOptions = {}): Pr
   }
   const manifestPath = join(path, MANIFEST_FILE);
   if (existsSync(manifestPath)) {
-    let text = readFileSync(manifestPath, 'utf8');
+    // read once: parsed here, and hashed below when it points at an NWB file
+    const manifestBytes = readFileSync(manifestPath);
+    let text = manifestBytes.toString('utf8');
     if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
     const m = parseManifest(text, MANIFEST_FILE);
     if (m.nwb !== undefined) {
@@ -51,10 +53,9 @@ export async function loadSession(path: string, options: ImportOptions = {}): Pr
       const r = await loadNwbSession(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] });
       // session.json chose the file and may set parameters: it is an input too (size + SHA-256), and the
       // NWB file is named as session.json names it (relative to the folder)
-      const bytes = readFileSync(manifestPath);
       const h = (opts.createHash ?? nodeSha256)();
-      h.update(bytes);
-      return { ...r, inputs: [{ file: MANIFEST_FILE, bytes: bytes.length, sha256: h.digestHex() }, ...r.inputs.map((i) => ({ ...i, file: sec.file as string }))] };
+      h.update(manifestBytes);
+      return { ...r, inputs: [{ file: MANIFEST_FILE, bytes: manifestBytes.length, sha256: h.digestHex() }, ...r.inputs.map((i) => ({ ...i, file: sec.file as string }))] };
     }
   }
   return importSession(createFsSessionSource(path), opts);
