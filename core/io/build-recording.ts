@@ -324,31 +324,29 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
     if (extents.length >= 2) {
       const top = extents.reduce((a, b) => (b.maxS > a.maxS ? b : a));
       const others = Math.max(...extents.filter((e) => e !== top).map((e) => e.maxS));
-      // Spikes running long after short pulses/events are a real design too (a brief light block
-      // at the start, no task): a unit slip in the spike file also divides every unit's apparent
-      // rate by ~1000 (ms) or more (samples), so a plausible median rate in seconds lets it pass.
-      const rates: number[] = [];
-      if (others > 0 && top.maxS > SCALE_RATIO * others && top.located === s) {
-        for (let c = 0; c < nCodes; c++) if (codeCount[c] > 0) rates.push(codeCount[c] / (top.maxS - start));
-        rates.sort((a, b) => a - b);
-      }
-      const medianRate = rates.length ? rates[(rates.length - 1) >> 1] : NaN;
-      if (others > 0 && top.maxS > SCALE_RATIO * others && medianRate >= PLAUSIBLE_MEDIAN_RATE_HZ) {
+      if (others > 0 && top.maxS > SCALE_RATIO * others) {
         const ends = extents.filter((e) => e !== top).map((e) => `${e.file} by ${round(e.maxS)} s`).join(', ');
+        // Spikes running long after short pulses/events are a real design too (a brief light block
+        // at the start, no task): a unit slip in the spike file also divides every unit's apparent
+        // rate by ~1000 (ms) or more (samples), so a plausible median rate in seconds lets it pass.
+        const rates: number[] = [];
+        if (top.located === s) for (let c = 0; c < nCodes; c++) if (codeCount[c] > 0) rates.push(codeCount[c] / (top.maxS - start));
+        rates.sort((a, b) => a - b);
+        const medianRate = rates.length ? rates[(rates.length - 1) >> 1] : NaN;
+        if (!(medianRate >= PLAUSIBLE_MEDIAN_RATE_HZ)) {
+          throw new InputError({
+            ...where(top.located, top.index),
+            column: top.column,
+            value: String(top.maxS),
+            problem: `times run to ${round(top.maxS)} s, but ${ends}${scaleHint(top.maxS / others)}`,
+            fix: `${scaleFix(1000, top.file)}; if the recording really is that long, set parameters.span.stopS in session.json`,
+          });
+        }
         warnings.push({
           code: 'inputs-end-early',
           file: top.file,
           count: 1,
           message: `spike times run to ${round(top.maxS)} s but ${ends}; accepted as seconds because the units' median rate over that span (${round(medianRate)} Hz) is plausible (spike times in milliseconds would give rates ~1000x lower). If the other files should cover the whole recording, check their clock and time unit.`,
-        });
-      } else if (others > 0 && top.maxS > SCALE_RATIO * others) {
-        const others = extents.filter((e) => e !== top).map((e) => `${e.file} by ${round(e.maxS)} s`).join(', ');
-        throw new InputError({
-          ...where(top.located, top.index),
-          column: top.column,
-          value: String(top.maxS),
-          problem: `times run to ${round(top.maxS)} s, but ${others}${scaleHint(top.maxS / Math.max(...extents.filter((e) => e !== top).map((e) => e.maxS)))}`,
-          fix: `${scaleFix(1000, top.file)}; if the recording really is that long, set parameters.span.stopS in session.json`,
         });
       }
     }
