@@ -1,3 +1,5 @@
+import { addIntervalOverlap } from './add-interval-overlap';
+
 /**
  * The segments of the rate-drift screen, computed once per session and
  * shared by every unit: the span [startS, stopS) cut into `nSegments` equal
@@ -30,17 +32,6 @@ export function driftSegments(startS: number, stopS: number, nSegments: number, 
   const kept = new Float64Array(k).fill(width);
   const xs = ex.startS;
   const xe = ex.stopS;
-  for (let j = 0; j < xs.length; j++) {
-    const a = Math.max(startS, xs[j]);
-    const b = Math.min(stopS, xe[j]);
-    if (!(b > a)) continue;
-    const first = Math.min(k - 1, Math.floor((a - startS) / width));
-    const last = Math.min(k - 1, Math.floor((b - startS) / width));
-    for (let seg = first; seg <= last; seg++) {
-      const lo = Math.max(a, startS + seg * width);
-      const hi = Math.min(b, startS + (seg + 1) * width);
-      if (hi > lo) kept[seg] -= hi - lo;
-    }
-  }
+  for (let j = 0; j < xs.length; j++) addIntervalOverlap(kept, startS, width, Math.max(startS, xs[j]), Math.min(stopS, xe[j]), -1);
   return { startS, stopS, count: k, widthS: width, timeLeftS: kept, exclude: ex };
 }

@@ -1,3 +1,5 @@
+import { addIntervalOverlap } from './add-interval-overlap';
+
 /**
  * Presence ratio: the fraction of `nBins` equal time bins over [startS, stopS)
  * that hold at least one spike (common practice; 100 bins is usual).
@@ -24,16 +26,7 @@ export function presenceRatio(spikeTimes: ArrayLike<number>, startS: number, sto
   if (observed) {
     const cover = new Float64Array(bins);
     for (let j = 0; j + 1 < observed.length; j += 2) {
-      const a = Math.max(startS, observed[j]);
-      const b = Math.min(stopS, observed[j + 1]);
-      if (!(b > a)) continue;
-      const first = Math.min(bins - 1, Math.floor((a - startS) / width));
-      const last = Math.min(bins - 1, Math.floor((b - startS) / width));
-      for (let k = first; k <= last; k++) {
-        const lo = Math.max(a, startS + k * width);
-        const hi = Math.min(b, startS + (k + 1) * width);
-        if (hi > lo) cover[k] += hi - lo;
-      }
+      addIntervalOverlap(cover, startS, width, Math.max(startS, observed[j]), Math.min(stopS, observed[j + 1]), 1);
     }
     eligible = new Uint8Array(bins);
     nEligible = 0;
