@@ -3,7 +3,8 @@
  * section 7 (bench/bench-session.ts: 1,000 units, ~20 M spikes) in its CSV
  * and its NPY form, each in a fresh process as the CLI would (JIT cold, file
  * cache warm), `--reps` times (default 3), and prints per form the median and
- * best wall time, CPU time (user + system), spikes per CPU-second, the peak
+ * best wall time, CPU time (user + system, and each: system time is the
+ * kernel's, mostly page faults of fresh memory and file reads), spikes per CPU-second, the peak
  * RSS and the fresh memory touched (minor page faults x 4 KiB: on a virtual
  * machine where first touches are slow, this is much of the time), against the targets (CSV >= 5 M rows per s). Never asserts.
  *
@@ -28,8 +29,11 @@ console.log(`import benchmark: ${s.units} units, ${s.spikes.toLocaleString('en')
 interface Run {
   wallMs: number;
   cpuMs: number;
+  userMs: number;
+  sysMs: number;
   maxRssBytes: number;
   minorFaults: number;
+  importFaults: number;
   units: number;
   spikes: number;
 }
@@ -52,9 +56,9 @@ for (const form of ['csv', 'npy'] as const) {
   const target = form === 'csv' ? `; target >= 5 M rows/s: ${rate >= 5 ? 'ok' : 'MISSED'}` : '';
   console.log(
     `import ${form.toUpperCase()}: wall ${(median(wall) / 1000).toFixed(2)} s (best ${(Math.min(...wall) / 1000).toFixed(2)}), ` +
-      `CPU ${(median(cpu) / 1000).toFixed(2)} s (best ${(Math.min(...cpu) / 1000).toFixed(2)}) = ${rate.toFixed(2)} M spikes per CPU-s${target}; ` +
+      `CPU ${(median(cpu) / 1000).toFixed(2)} s (best ${(Math.min(...cpu) / 1000).toFixed(2)}; user ${(median(runs.map((r) => r.userMs)) / 1000).toFixed(2)} + sys ${(median(runs.map((r) => r.sysMs)) / 1000).toFixed(2)}) = ${rate.toFixed(2)} M spikes per CPU-s${target}; ` +
       `peak RSS ${(median(runs.map((r) => r.maxRssBytes)) / 1048576).toFixed(0)} MiB, ` +
-      `${((median(runs.map((r) => r.minorFaults)) * 4096) / 1048576).toFixed(0)} MiB of fresh pages touched; ${runs[0].units} units, ${runs[0].spikes.toLocaleString('en')} spikes`,
+      `${((median(runs.map((r) => r.minorFaults)) * 4096) / 1048576).toFixed(0)} MiB of fresh pages touched (${((median(runs.map((r) => r.importFaults)) * 4096) / 1048576).toFixed(0)} MiB by the import itself); ${runs[0].units} units, ${runs[0].spikes.toLocaleString('en')} spikes`,
   );
 }
 console.log('medians of fresh processes; CPU time is the figure to compare on a busy machine (uptime load above ~2 inflates wall time).');

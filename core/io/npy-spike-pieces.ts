@@ -6,8 +6,10 @@
  * memory, nor converted copies of them).
  *
  * Reads the units file once in full first (hashing every byte with its
- * `hash`, and giving each distinct unit id its code in order of first
- * appearance, the same codes whatever the piece length); the times file is
+ * `hash`, giving each distinct unit id its code in order of first
+ * appearance, the same codes whatever the piece length, and counting the
+ * spikes per code: pieces.codeCounts, so buildRecording need not visit the
+ * unit codes a second time before it groups the spikes); the times file is
  * hashed during the first visit of the pieces (forEach). Every visit reads both files
  * by offset (the second time from the operating system's file cache)
  * and converts each piece: unit values to codes, times to float64 seconds
@@ -68,7 +70,6 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
   const tBuf = new Uint8Array(P * th.itemSize);
   const uBuf = new Uint8Array(P * uh.itemSize);
   const codes = new Int32Array(P);
-  const uVals = new Float64Array(P);
   const tVals = th.dtype === 'f8' && factor === 1 ? null : new Float64Array(P);
 
   // unit id -> code: a direct table for small non-negative whole numbers, a Map for the rest
@@ -76,6 +77,9 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
   let small = new Int32Array(1024).fill(-1);
   const other = new Map<number, number>();
   let frozen = false; // after the first full read, no new id may appear
+  // spikes per code and each code's first element, counted during the first full read
+  const firstOf: number[] = [];
+  let count = new Float64Array(64);
 
   const readRange = (f: NpySpikeFile, offset: number, into: Uint8Array): void => {
     let got: number;
@@ -91,12 +95,20 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
     throw new InputError({ file: f.file, problem: 'the file changed (or became shorter) while it was being read', fix: 'wait until the file is completely written, then import again' });
   };
 
+  // integer dtypes up to 32 bits are read in place (exact as numbers); the rest through uVals
+  const inPlace = uh.dtype === 'i4' || uh.dtype === 'u4' || uh.dtype === 'i2' || uh.dtype === 'u2' || uh.dtype === 'i1' || uh.dtype === 'u1';
+  const uVals = inPlace ? null : new Float64Array(P);
   /** Unit codes of elements first .. first + m - 1 (bytes already in uBuf). */
   const unitCodes = (first: number, m: number): void => {
-    toFloat64(uh, uBuf, m, uVals, unitsIn.file, first);
+    let src: Float64Array | Int32Array | Uint32Array | Int16Array | Uint16Array | Int8Array | Uint8Array;
+    if (inPlace) src = npyTypedView(uh.dtype, uBuf.buffer, uBuf.byteOffset, m) as typeof src;
+    else {
+      toFloat64(uh, uBuf, m, uVals!, unitsIn.file, first);
+      src = uVals!;
+    }
     let table = small;
     for (let i = 0; i < m; i++) {
-      const v = uVals[i];
+      const v = src[i];
       const k = v | 0;
       if (k === v && k >= 0 && k < table.length) {
         const c = table[k];
@@ -130,6 +142,7 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
       other.set(v, ids.length);
     }
     ids.push(String(v));
+    firstOf.push(index);
     return ids.length - 1;
   };
 
@@ -141,6 +154,12 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
     readRange(unitsIn, uh.dataStart + first * uh.itemSize, b);
     unitsIn.hash.update(b);
     unitCodes(first, m);
+    if (ids.length > count.length) {
+      const more = new Float64Array(Math.max(ids.length, 2 * count.length));
+      more.set(count);
+      count = more;
+    }
+    for (let i = 0; i < m; i++) count[codes[i]]++;
   }
   hashRange(unitsIn, uh.dataStart + n * uh.itemSize, unitsIn.data.size);
   frozen = true;
@@ -174,6 +193,9 @@ export function npySpikePieces(timesIn: NpySpikeFile, unitsIn: NpySpikeFile, opt
         hashRange(timesIn, th.dataStart + n * th.itemSize, timesIn.data.size);
         timesHash = 'done';
       }
+    },
+    codeCounts() {
+      return { count: count.slice(0, ids.length), first: Float64Array.from(firstOf) };
     },
     forEachUnit(visit) {
       for (let first = 0; first < n; first += P) {

@@ -27,6 +27,13 @@ export interface SpikePieces {
   forEach(visit: (unit: UnitCodes, time: Float64Array, first: number) => void, last?: boolean): void;
   /** The same pieces' unit codes alone (cheaper: times are not read). */
   forEachUnit(visit: (unit: UnitCodes, first: number) => void): void;
+  /**
+   * Optional: what a visit of forEachUnit would count, when the source knows
+   * it already (the .npy reader counts while it codes the unit ids): spikes
+   * per unit code, and each code's first record (0-based; -1 = none). One
+   * entry per unit id; fresh arrays (the caller may keep them).
+   */
+  codeCounts?(): { readonly count: Float64Array; readonly first: Float64Array };
 }
 
 export function spikePieces(units: UnitCodes[], times: Float64Array[]): SpikePieces {

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { InputError } from '../../../core/errors';
 import { buildRecording, type RecordingTables, type SpikeColumns } from '../../../core/io/build-recording';
+import { spikePieces } from '../../../core/io/spike-pieces';
 
 const rowOf = (i: number) => i + 2; // header on line 1
 function spikes(units: string[], times: number[]): SpikeColumns {
@@ -210,5 +212,142 @@ describe('buildRecording: sharedMemory option', () => {
     st[0] = 99; // shared, not copied: the clone sees it
     expect(clone[0]).toBe(99);
     st[0] = before;
+  });
+});
+
+/**
+ * The grouping of buildRecording (a counting sort by unit, blocked in two
+ * loops, unsorted spikes found as descents within a unit's range, a source's
+ * own counts used when it has them) against a plain reference written the
+ * obvious way: per unit, its spikes in file order; "unsorted" counts spikes
+ * below the same unit's previous spike in file order; then each unit sorted
+ * numerically and equal neighbours counted as duplicates. Exact equality
+ * (tolerance 0: no arithmetic on the times).
+ */
+describe('buildRecording: grouping against a plain reference', () => {
+  function reference(ids: readonly string[], unit: ArrayLike<number>, time: ArrayLike<number>) {
+    const per = new Map<number, number[]>();
+    let unsorted = 0;
+    for (let i = 0; i < time.length; i++) {
+      const list = per.get(unit[i]) ?? [];
+      if (list.length > 0 && time[i] < list[list.length - 1]) unsorted++;
+      list.push(time[i]);
+      per.set(unit[i], list);
+    }
+    let duplicates = 0;
+    const byId = new Map<string, number[]>();
+    for (const [c, list] of per) {
+      list.sort((a, b) => a - b);
+      for (let i = 1; i < list.length; i++) if (list[i] === list[i - 1]) duplicates++;
+      byId.set(ids[c], list);
+    }
+    let maxT = -Infinity;
+    for (let i = 0; i < time.length; i++) maxT = Math.max(maxT, time[i]);
+    return { byId, unsorted, duplicates, maxT };
+  }
+  /** Splits [0, n) into pieces at the given cut points (empty pieces included). */
+  function cut(unit: Int32Array, time: Float64Array, cuts: number[]) {
+    const at = [0, ...cuts.map((c) => Math.min(c, time.length)).sort((a, b) => a - b), time.length];
+    const us: Uint16Array[] = [];
+    const ts: Float64Array[] = [];
+    for (let k = 0; k + 1 < at.length; k++) {
+      us.push(Uint16Array.from(unit.subarray(at[k], at[k + 1])));
+      ts.push(time.slice(at[k], at[k + 1]));
+    }
+    return { us, ts };
+  }
+  function check(ids: string[], unit: Int32Array, time: Float64Array, cuts: number[], withCounts: boolean) {
+    const { us, ts } = cut(unit, time, cuts);
+    const pieces = spikePieces(us, ts);
+    if (withCounts) {
+      const count = new Float64Array(ids.length);
+      const first = new Float64Array(ids.length).fill(-1);
+      unit.forEach((c, i) => {
+        if (count[c]++ === 0) first[c] = i;
+      });
+      (pieces as { codeCounts?: () => unknown }).codeCounts = () => ({ count, first });
+    }
+    const { recording, warnings } = buildRecording({ spikes: { file: 'spikes.csv', rowOf, columns: { unit: 'unit', time: 'time' }, unitIds: ids, pieces }, toleranceS: 1 });
+    const want = reference(ids, unit, time);
+    for (const u of recording.units) expect(Array.from(u.spikeTimes)).toEqual(want.byId.get(u.id) ?? []);
+    expect(recording.units.length).toBe(want.byId.size);
+    expect(warnings.find((w) => w.code === 'unsorted-spikes')?.count ?? 0).toBe(want.unsorted);
+    expect(warnings.find((w) => w.code === 'duplicate-spike-times')?.count ?? 0).toBe(want.duplicates);
+    expect(recording.span).toEqual([0, Math.max(want.maxT, 0) || 1]);
+    // one array holds every spike, unit after unit
+    expect(new Set(recording.units.map((u) => u.spikeTimes.buffer)).size).toBe(1);
+  }
+
+  it('random tables: ids, ties, unsorted rows, piece cuts anywhere (fast-check, 300 cases)', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 12 }),
+        fc.array(fc.tuple(fc.nat(11), fc.integer({ min: 0, max: 40 })), { minLength: 1, maxLength: 200 }),
+        fc.array(fc.nat(220), { maxLength: 6 }),
+        fc.boolean(),
+        (nIds, rows, cuts, withCounts) => {
+          const ids = Array.from({ length: nIds }, (_, k) => String(k * 7 + 1));
+          const unit = Int32Array.from(rows, ([u]) => u % nIds);
+          const time = Float64Array.from(rows, ([, t]) => t / 4); // quarter seconds: many ties
+          // ids listed but without spikes are not units (no unit-info table)
+          const used = [...new Set(unit)].sort((a, b) => a - b);
+          const remap = new Map(used.map((c, k) => [c, k]));
+          check(used.map((c) => ids[c]), Int32Array.from(unit, (c) => remap.get(c)!), time, cuts, withCounts);
+        },
+      ),
+      { numRuns: 300, seed: 20261202 },
+    );
+  });
+
+  it('edge cases: one spike, all spikes in one unit, spikes across scatter blocks of 4096, exact ties at block edges', () => {
+    check(['1'], Int32Array.of(0), Float64Array.of(0), [], false);
+    check(['1'], Int32Array.of(0), Float64Array.of(2.5), [0, 1], true);
+    // 20,000 spikes, 3 units, time-sorted with a reversed stretch crossing 4096 and 8192, pieces of odd lengths
+    const n = 20000;
+    const unit = Int32Array.from({ length: n }, (_, i) => (i * 7919) % 3);
+    const time = Float64Array.from({ length: n }, (_, i) => i / 1000);
+    time.subarray(4000, 8300).reverse();
+    time[4095] = time[4096] = time[4097]; // ties exactly at a block edge
+    for (const withCounts of [false, true]) check(['a', 'b', 'c'], unit, time, [1, 4095, 4096, 4097, 12289, 19999], withCounts);
+    check(['only'], new Int32Array(n), time, [8192], true);
+  });
+
+  it('a bad time is named by its row, the first in file order, whatever the piece and block cuts', () => {
+    const n = 9000;
+    const unit = Int32Array.from({ length: n }, (_, i) => i % 5);
+    const time = Float64Array.from({ length: n }, (_, i) => i / 100);
+    time[8500] = -1;
+    time[5000] = NaN;
+    time[4100] = Infinity;
+    for (const cuts of [[], [4100], [4101], [5000, 8500], [1, 2, 3]]) {
+      const { us, ts } = cut(unit, time, cuts);
+      const s = { file: 'spikes.csv', rowOf, columns: { unit: 'unit', time: 'time' }, unitIds: ['1', '2', '3', '4', '5'], pieces: spikePieces(us, ts) };
+      expect(message(() => buildRecording({ spikes: s, toleranceS: 1 }))).toBe('spikes.csv, row 4102, column "time": time is not a finite number (value "Infinity"). Remove the row or give a time in seconds.');
+    }
+  });
+
+  it("uses a source's own counts and rejects a source whose data changed after counting", () => {
+    const unit = Int32Array.of(0, 1, 0, 1);
+    const time = Float64Array.of(1, 2, 3, 4);
+    let visits = 0;
+    const pieces = spikePieces([Uint16Array.from(unit)], [time]);
+    const counted = {
+      ...pieces,
+      forEachUnit() {
+        visits++; // must not be needed
+      },
+      codeCounts: () => ({ count: Float64Array.of(2, 2), first: Float64Array.of(0, 1) }),
+    };
+    const s = { file: 'spikes.npy', columns: { unit: 'units.npy', time: 'spikes.npy' }, unitIds: ['7', '8'] };
+    const { recording } = buildRecording({ spikes: { ...s, pieces: counted }, toleranceS: 1 });
+    expect(visits).toBe(0);
+    expect(recording.units.map((u) => [u.id, Array.from(u.spikeTimes)])).toEqual([
+      ['7', [1, 3]],
+      ['8', [2, 4]],
+    ]);
+    const stale = { ...spikePieces([Uint16Array.from(unit)], [time]), codeCounts: () => ({ count: Float64Array.of(3, 1), first: Float64Array.of(0, 1) }) };
+    expect(message(() => buildRecording({ spikes: { ...s, pieces: stale }, toleranceS: 1 }))).toBe(
+      'spikes.npy: the spike table changed while it was being read. Wait until the files are completely written, then import again.',
+    );
   });
 });

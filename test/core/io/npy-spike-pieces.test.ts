@@ -107,6 +107,21 @@ describe('npySpikePieces vs the whole-array reader', () => {
         }
       }
     });
+
+    it(`${name}: codeCounts equals a count of the pieces' unit codes (what buildRecording would count)`, () => {
+      for (const P of [1, 7, 1000, 1 << 18]) {
+        const r = npySpikePieces(file('spikes.npy', tb), file('units.npy', ub), { timeFactor: () => factor, pieceLength: P });
+        const count = new Float64Array(r.unitIds.length);
+        const first = new Float64Array(r.unitIds.length).fill(-1);
+        r.pieces.forEachUnit((unit, f) => {
+          for (let i = 0; i < unit.length; i++) if (count[unit[i]]++ === 0) first[unit[i]] = f + i;
+        });
+        const got = r.pieces.codeCounts!();
+        expect(Array.from(got.count)).toEqual(Array.from(count));
+        expect(Array.from(got.first)).toEqual(Array.from(first));
+        expect(got.count.reduce((a, b) => a + b, 0)).toBe(n);
+      }
+    });
   }
 
   it('every 1-D fixture written by NumPy reads as readNpy reads it (as times)', () => {
@@ -217,6 +232,21 @@ describe('npySpikePieces: errors name the file and the 0-based element', () => {
     };
     const r = npySpikePieces(t, u, { timeFactor: () => 1, pieceLength: 100 });
     expect(msg(() => r.pieces.forEach(() => {}))).toMatch(/^units\.npy: the file changed \(or became shorter\) while it was being read/);
+  });
+  it('a units file that changes between its counting read and the grouping read (same ids, other counts)', () => {
+    const u0 = Int32Array.from({ length: 10 }, (_, i) => i % 2); // 5 + 5
+    const u1 = Int32Array.from({ length: 10 }, (_, i) => (i < 3 ? 0 : 1)); // 3 + 7, same ids in the same order
+    const b0 = npyBytes(u0);
+    const b1 = npyBytes(u1);
+    let fullReads = 0;
+    const u: NpySpikeFile = {
+      file: 'units.npy',
+      hash: createSha256(),
+      data: { size: b0.length, read: (o, len) => (o >= 64 && len === 40 && ++fullReads > 1 ? b1 : b0).slice(o, o + len) },
+    };
+    const r = npySpikePieces(file('spikes.npy', t10), u, { timeFactor: () => 1, pieceLength: 10 });
+    const spikes = { file: 'spikes.npy', columns: { unit: 'units.npy', time: 'spikes.npy' }, unitIds: r.unitIds, pieces: r.pieces };
+    expect(msg(() => buildRecording({ spikes, toleranceS: 1 }))).toBe('spikes.npy: the spike table changed while it was being read. Wait until the files are completely written, then import again.');
   });
 });
 
