@@ -89,7 +89,7 @@ export async function analyseRecordingThreads(recording: Recording, parameters: 
   opts.onPlan?.(plan);
   const { moved } = plan;
   if (moved.length === 0) return analyseRecording(recording, parameters, steps);
-  const worker = await startWorkerThread(import.meta.url, './run-steps-worker');
+  const worker = await startWorkerThread('core/node/run-steps-worker');
   try {
     const reply = new Promise<StepsReply>((resolve, reject) => {
       worker.once('message', resolve);
