@@ -10,7 +10,8 @@
  * node_modules/.cache/tagbench-bundles/<name>-<first 12 hex of sha256(path)>.mjs,
  * with a manifest beside it (.json: the source path and [file, size, mtimeMs]
  * of every project file in the bundle). It is fresh while every listed file
- * has the same size and modification time; otherwise it is rebuilt (vite's
+ * has the same size and modification time (a file modified during the build
+ * is recorded as never fresh); otherwise it is rebuilt (vite's
  * library build, ~0.3 s; packages and Node built-ins stay imports and resolve
  * from node_modules, which is why the bundle lives under it). Files are written
  * under temporary names and renamed, so concurrent processes never load half a
@@ -67,6 +68,7 @@ export function bundledModule(root: string, entry: string): Promise<string> {
 }
 
 async function build(root: string, entry: string, loc: { bundle: string; manifest: string }): Promise<string> {
+  const started = Date.now();
   const { build: viteBuild } = await import('vite');
   const result = await viteBuild({
     configFile: false,
@@ -92,7 +94,8 @@ async function build(root: string, entry: string, loc: { bundle: string; manifes
     .filter((p) => existsSync(p))
     .map((p) => {
       const s = statSync(p);
-      return [p, s.size, s.mtimeMs] as const;
+      // A file changed while vite read it may not be in the bundle as it is now: size -1 never matches, so the next start rebuilds.
+      return [p, s.mtimeMs >= started ? -1 : s.size, s.mtimeMs] as const;
     });
   mkdirSync(join(loc.bundle, '..'), { recursive: true });
   const tmp = `.${process.pid}-${Date.now()}-${Math.random().toString(36).slice(2)}.tmp`;

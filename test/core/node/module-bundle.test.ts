@@ -17,6 +17,8 @@ describe('bundledModule', () => {
     writeFileSync(join(work, 'entry.ts'), "import { two } from './part';\nexport const answer: number = two() * 21;\n");
     writeFileSync(join(work, 'part.ts'), 'export function two(): number {\n  return 2;\n}\n');
     const entry = join(work, 'entry.ts');
+    const settle = () => new Promise((r) => setTimeout(r, 50)); // files written in the same instant a build starts count as changed during it
+    await settle();
     const first = await bundledModule(work, entry);
     expect(first).toBe(bundleLocation(work, entry).bundle);
     const m = JSON.parse(readFileSync(bundleLocation(work, entry).manifest, 'utf8')) as BundleManifest;
@@ -27,9 +29,13 @@ describe('bundledModule', () => {
     expect(await bundledModule(work, entry)).toBe(first);
     expect(statSync(first).mtimeMs).toBe(builtAt); // fresh: not rebuilt
     writeFileSync(join(work, 'part.ts'), 'export function two(): number {\n  return 3;\n}\n'); // size changes too
+    await settle();
     const again = await bundledModule(work, entry);
     expect(again).toBe(first);
     expect(((await import(`${pathToFileURL(again).href}?v=2`)) as { answer: number }).answer).toBe(63);
+    // No file changed during these builds, so every size is recorded (a file changed during one gets -1: never fresh).
+    const m2 = JSON.parse(readFileSync(bundleLocation(work, entry).manifest, 'utf8')) as BundleManifest;
+    expect(m2.modules.every(([, size]) => size > 0)).toBe(true);
   }, 60_000);
 });
 
