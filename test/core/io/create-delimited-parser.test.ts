@@ -180,6 +180,72 @@ describe('createDelimitedParser', () => {
     expect(p.codes!.flatMap((b) => Array.from(b, (k) => p.dictionary![k]))).toEqual(want);
   });
 
+  it('the [id, number] record fast path gives what the general path gives, byte for byte (fast-check)', () => {
+    // Records mix the plain form the fast path takes with every form it must hand to the general
+    // path: quotes, spaces, CRLF and lone CR, blank lines, leading zeros and long ids, new ids,
+    // exponents, 16+ digit numbers, signs, empty and bad cells; chunk cuts anywhere.
+    const idArb = fc.oneof(fc.nat(40).map(String), fc.constantFrom('0', '007', '1234567890', '"5"', ' 6', 'a', '-3', ''));
+    const numArb = fc.oneof(
+      fc.double({ noNaN: true, noDefaultInfinity: true }).map(String),
+      fc.integer({ min: 0, max: 10 ** 6 }).map((k) => (k / 1000).toFixed(3)),
+      fc.constantFrom('-0', '+7', '.5', '5.', '1e3', '0.000000000000000000000001', '12345678901234567', '1.5 ', '"2"', 'nan', '-inf', '', 'x', '1.2.3', '-', '3,4'),
+    );
+    const endArb = fc.constantFrom('\n', '\n', '\n', '\r\n', '\n\n', '\r');
+    const rowsArb = fc.array(fc.tuple(idArb, numArb, endArb), { minLength: 1, maxLength: 60 });
+    const both = (bytes: Uint8Array, chunk: number, fast: boolean) => {
+      const p = createDelimitedParser({ file: 'spikes.csv', columns: PIECES, pairFastPath: fast });
+      try {
+        if (chunk <= 0) p.push(bytes);
+        else for (let i = 0; i < bytes.length; i += chunk) p.push(bytes.slice(i, i + chunk));
+        const t = p.finish();
+        const u = t.pieces.get('unit')!;
+        const tm = t.pieces.get('time')!.numbers!;
+        return {
+          units: u.codes!.flatMap((b) => Array.from(b, (k) => u.dictionary![k])),
+          codes: u.codes!.flatMap((b) => Array.from(b)),
+          times: tm.flatMap((b) => Array.from(b)),
+          rows: Array.from({ length: t.rowCount }, (_, i) => t.rowOf(i)),
+        };
+      } catch (e) {
+        expect(e).toBeInstanceOf(InputError);
+        return { error: (e as Error).message };
+      }
+    };
+    const PIECES: ColumnSpec[] = SPIKE_COLS.map((c) => ({ ...c, pieces: true }));
+    fc.assert(
+      fc.property(rowsArb, fc.integer({ min: 0, max: 23 }), (rows, chunk) => {
+        const text = 'unit,time\n' + rows.map(([u, t, e]) => `${u},${t}${e}`).join('');
+        const bytes = enc(text);
+        const general = both(bytes, chunk, false);
+        expect(both(bytes, chunk, true)).toEqual(general);
+        expect(both(bytes, 0, true)).toEqual(both(bytes, 0, false));
+      }),
+      { numRuns: 400, seed: 20261202 },
+    );
+  });
+
+  it('the fast path across block and chunk edges: 140,000 plain rows with a few odd ones', () => {
+    const PIECES: ColumnSpec[] = SPIKE_COLS.map((c) => ({ ...c, pieces: true }));
+    const parts = ['unit,time\n'];
+    for (let i = 0; i < 140_000; i++) parts.push(i % 9973 === 0 ? `"${i % 50}", ${i}e-3\r\n\n` : `${i % 50},${(i / 7).toFixed(6)}\n`);
+    const bytes = enc(parts.join(''));
+    const read = (fast: boolean, chunk: number) => {
+      const p = createDelimitedParser({ file: 'spikes.csv', columns: PIECES, pairFastPath: fast });
+      for (let i = 0; i < bytes.length; i += chunk) p.push(bytes.subarray(i, i + chunk));
+      const t = p.finish();
+      return { t, times: t.pieces.get('time')!.numbers!.flatMap((b) => Array.from(b)), codes: t.pieces.get('unit')!.codes!.flatMap((b) => Array.from(b)) };
+    };
+    const g = read(false, 1 << 20);
+    expect(g.times.length).toBe(140_000);
+    expect(g.times[65_535]).toBe(Number((65_535 / 7).toFixed(6)));
+    for (const chunk of [4093, 65_537, 1 << 22]) {
+      const f = read(true, chunk);
+      expect(f.times).toEqual(g.times);
+      expect(f.codes).toEqual(g.codes);
+      for (const i of [0, 9972, 9973, 9974, 65_535, 65_536, 139_999]) expect(f.t.rowOf(i)).toBe(g.t.rowOf(i));
+    }
+  });
+
   it('header-only file gives zero rows', () => {
     expect(parse('unit,time\n').rowCount).toBe(0);
   });
