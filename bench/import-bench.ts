@@ -8,7 +8,10 @@
  * RSS and the fresh memory touched (minor page faults x 4 KiB: on a virtual
  * machine where first touches are slow, this is much of the time), against the targets (CSV >= 5 M rows per s). Never asserts.
  *
- *   npx tsx bench/import-bench.ts [--reps 3] [--only csv|npy] [--units 1000] [--seed 7]
+ *   npx tsx bench/import-bench.ts [--reps 3] [--only csv|npy] [--units 1000] [--seed 7] [--compare DIR]
+ *
+ * --compare DIR runs another checkout's import (its bench/import-child.ts) in turn with this
+ * one's, rep by rep, so before/after figures share the machine's load.
  */
 import { spawnSync } from 'node:child_process';
 import { dirname, join, resolve } from 'node:path';
@@ -38,27 +41,39 @@ interface Run {
   spikes: number;
 }
 const median = (x: number[]) => [...x].sort((a, b) => a - b)[Math.floor((x.length - 1) / 2)];
+const mib = (pages: number) => ((pages * 4096) / 1048576).toFixed(0);
+const sec = (ms: number) => (ms / 1000).toFixed(2);
+// --compare DIR: another checkout of the project (e.g. `git worktree add /tmp/old <commit>` with
+// node_modules linked): its own bench/import-child.ts runs in turn with ours, so both see the
+// same machine load; fields an older child does not print show as "?"
+const compare = opt('--compare', '');
+const sides: [string, string][] = [['', ROOT], ...(compare ? ([['compare', resolve(compare)]] as [string, string][]) : [])];
 for (const form of ['csv', 'npy'] as const) {
   if (only && only !== form) continue;
-  const runs: Run[] = [];
+  const runs = new Map<string, Run[]>(sides.map(([label]) => [label, []]));
   for (let k = 0; k < reps; k++) {
-    const r = spawnSync(process.execPath, ['--import', 'tsx', join(ROOT, 'bench/import-child.ts'), form === 'csv' ? s.csvDir : s.npyDir], { cwd: ROOT, encoding: 'utf8' });
-    if (r.status !== 0) {
-      console.log(`${form}: import FAILED (exit ${r.status})\n${r.stderr}`);
-      break;
+    for (const [label, dir] of sides) {
+      const r = spawnSync(process.execPath, ['--import', 'tsx', join(dir, 'bench/import-child.ts'), form === 'csv' ? s.csvDir : s.npyDir], { cwd: dir, encoding: 'utf8' });
+      if (r.status !== 0) {
+        console.log(`${form}${label ? ` (${label})` : ''}: import FAILED (exit ${r.status})\n${r.stderr}`);
+        continue;
+      }
+      runs.get(label)!.push(JSON.parse(r.stdout.trim().split('\n').pop()!) as Run);
     }
-    runs.push(JSON.parse(r.stdout.trim().split('\n').pop()!) as Run);
   }
-  if (runs.length === 0) continue;
-  const cpu = runs.map((r) => r.cpuMs);
-  const wall = runs.map((r) => r.wallMs);
-  const rate = s.spikes / median(cpu) / 1000;
-  const target = form === 'csv' ? `; target >= 5 M rows/s: ${rate >= 5 ? 'ok' : 'MISSED'}` : '';
-  console.log(
-    `import ${form.toUpperCase()}: wall ${(median(wall) / 1000).toFixed(2)} s (best ${(Math.min(...wall) / 1000).toFixed(2)}), ` +
-      `CPU ${(median(cpu) / 1000).toFixed(2)} s (best ${(Math.min(...cpu) / 1000).toFixed(2)}; user ${(median(runs.map((r) => r.userMs)) / 1000).toFixed(2)} + sys ${(median(runs.map((r) => r.sysMs)) / 1000).toFixed(2)}) = ${rate.toFixed(2)} M spikes per CPU-s${target}; ` +
-      `peak RSS ${(median(runs.map((r) => r.maxRssBytes)) / 1048576).toFixed(0)} MiB, ` +
-      `${((median(runs.map((r) => r.minorFaults)) * 4096) / 1048576).toFixed(0)} MiB of fresh pages touched (${((median(runs.map((r) => r.importFaults)) * 4096) / 1048576).toFixed(0)} MiB by the import itself); ${runs[0].units} units, ${runs[0].spikes.toLocaleString('en')} spikes`,
-  );
+  for (const [label, rs] of runs) {
+    if (rs.length === 0) continue;
+    const cpu = rs.map((r) => r.cpuMs);
+    const wall = rs.map((r) => r.wallMs);
+    const rate = s.spikes / median(cpu) / 1000;
+    const target = form === 'csv' ? `; target >= 5 M rows/s: ${rate >= 5 ? 'ok' : 'MISSED'}` : '';
+    const med = (k: keyof Run, f: (x: number) => string) => (rs.every((r) => typeof r[k] === 'number') ? f(median(rs.map((r) => r[k] as number))) : '?');
+    console.log(
+      `import ${form.toUpperCase()}${label ? ` [${label}: ${compare}]` : ''}: wall ${sec(median(wall))} s (best ${sec(Math.min(...wall))}), ` +
+        `CPU ${sec(median(cpu))} s (best ${sec(Math.min(...cpu))}; user ${med('userMs', sec)} + sys ${med('sysMs', sec)}) = ${rate.toFixed(2)} M spikes per CPU-s${target}; ` +
+        `peak RSS ${(median(rs.map((r) => r.maxRssBytes)) / 1048576).toFixed(0)} MiB, ` +
+        `${med('minorFaults', mib)} MiB of fresh pages touched (${med('importFaults', mib)} MiB by the import itself); ${rs[0].units} units, ${rs[0].spikes.toLocaleString('en')} spikes`,
+    );
+  }
 }
 console.log('medians of fresh processes; CPU time is the figure to compare on a busy machine (uptime load above ~2 inflates wall time).');
