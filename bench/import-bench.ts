@@ -8,10 +8,12 @@
  * RSS and the fresh memory touched (minor page faults x 4 KiB: on a virtual
  * machine where first touches are slow, this is much of the time), against the targets (CSV >= 5 M rows per s). Never asserts.
  *
- *   npx tsx bench/import-bench.ts [--reps 3] [--only csv|npy] [--units 1000] [--seed 7] [--compare DIR]
+ *   npx tsx bench/import-bench.ts [--reps 3] [--only csv|npy] [--units 1000] [--seed 7] [--compare DIR] [--env NAME=VALUE]
  *
  * --compare DIR runs another checkout's import (its bench/import-child.ts) in turn with this
- * one's, rep by rep, so before/after figures share the machine's load.
+ * one's, rep by rep, so before/after figures share the machine's load. --env NAME=VALUE
+ * (repeatable) sets a variable for the import processes (e.g. GLIBC_TUNABLES=glibc.malloc.hugetlb=1:
+ * large allocations on transparent huge pages).
  */
 import { spawnSync } from 'node:child_process';
 import { dirname, join, resolve } from 'node:path';
@@ -47,13 +49,21 @@ const sec = (ms: number) => (ms / 1000).toFixed(2);
 // node_modules linked): its own bench/import-child.ts runs in turn with ours, so both see the
 // same machine load; fields an older child does not print show as "?"
 const compare = opt('--compare', '');
+// --env NAME=VALUE (repeatable): set for the import processes, e.g. GLIBC_TUNABLES=glibc.malloc.hugetlb=1
+const childEnv: Record<string, string | undefined> = { ...process.env };
+args.forEach((a, i) => {
+  if (a === '--env' && args[i + 1]?.includes('=')) {
+    const [k, ...v] = args[i + 1].split('=');
+    childEnv[k] = v.join('=');
+  }
+});
 const sides: [string, string][] = [['', ROOT], ...(compare ? ([['compare', resolve(compare)]] as [string, string][]) : [])];
 for (const form of ['csv', 'npy'] as const) {
   if (only && only !== form) continue;
   const runs = new Map<string, Run[]>(sides.map(([label]) => [label, []]));
   for (let k = 0; k < reps; k++) {
     for (const [label, dir] of sides) {
-      const r = spawnSync(process.execPath, ['--import', 'tsx', join(dir, 'bench/import-child.ts'), form === 'csv' ? s.csvDir : s.npyDir], { cwd: dir, encoding: 'utf8' });
+      const r = spawnSync(process.execPath, ['--import', 'tsx', join(dir, 'bench/import-child.ts'), form === 'csv' ? s.csvDir : s.npyDir], { cwd: dir, encoding: 'utf8', env: childEnv });
       if (r.status !== 0) {
         console.log(`${form}${label ? ` (${label})` : ''}: import FAILED (exit ${r.status})\n${r.stderr}`);
         continue;
