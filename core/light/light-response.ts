@@ -1,5 +1,5 @@
 import { lowerBound } from '../align/lower-bound';
-import { gallopBound } from '../align/gallop-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 import { selectKth } from './select-kth';
 import { poissonSf } from '../stats/distributions/poisson';
 import type { Parameters } from '../defaults';
@@ -49,11 +49,11 @@ export interface LightResponse {
   readonly offsetAnswered: number;
   readonly offsetJitterS: number;
   readonly offsetCountP: number;
-  /** Per frequency group (schedule.frequencyKeys order): pulses, reliability, mean latency (s). Only with detail. */
+  /** Per frequency group (schedule.frequencyKeys order): pulses, reliability, mean latency (s). Only with detail (true or 'summary'). */
   readonly frequencyPulses?: Float64Array;
   readonly frequencyReliability?: Float64Array;
   readonly frequencyLatencyS?: Float64Array;
-  /** First-spike latency after onset per pulse, s (NaN = no spike in window). Only with detail. */
+  /** First-spike latency after onset per pulse, s (NaN = no spike in window). Only with detail true (not 'summary'). */
   readonly latencyS?: Float64Array;
 }
 
@@ -100,16 +100,26 @@ export function createLightScratch(): LightScratch {
  * saltMinExcess: SALT is skipped (p NaN) when the excess reliability is below
  * it (the trust simulation's shortcut: such a unit cannot be `tagged`).
  *
- * Cost: one binary search per pulse and window stretch, then one pass over the
- * spikes inside; no allocation per pulse (detail = false allocates nothing once
- * the scratch has grown). Edge cases: no pulses -> pulses 0 and NaN measures;
- * no spikes -> reliability 0, NaN latencies.
+ * detail: false gives no median, per-frequency figures or per-pulse
+ * latencies; 'summary' the median and per-frequency figures; true also the
+ * per-pulse latencies (latencyS, one array of pulses' length per call: on
+ * this machine allocating it cost more than the whole scan, so the light step
+ * asks for it only when the waveform match needs it).
+ *
+ * Cost: two forward walks over the spikes (lowerBoundNear from the previous
+ * window: the test windows in pulse order, then the SALT baseline blocks in
+ * time order, schedule.saltBlockOrder), reading each spike inside a window
+ * once; no allocation per pulse (detail false or 'summary' allocate nothing
+ * per pulse once the scratch has grown). Results do not depend on the order
+ * the blocks are read in (integer counts). Spike times must be sorted (as a
+ * Recording's are). Edge cases: no pulses -> pulses 0 and NaN measures; no
+ * spikes -> reliability 0, NaN latencies.
  */
 export function lightResponse(
   spikeTimes: Float64Array,
   sch: LightSchedule,
   p: Parameters['light'],
-  detail = false,
+  detail: boolean | 'summary' = false,
   scratch: LightScratch = createLightScratch(),
   saltMinExcess = -Infinity,
 ): LightResponse {
@@ -138,10 +148,11 @@ export function lightResponse(
   let sumL2 = 0;
   let allSum = 0;
   let allSum2 = 0;
+  const onset = sch.onset;
   for (let i = 0; i < n; i++) {
-    const lo = sch.onset[i] + ws;
+    const lo = onset[i] + ws;
     const hi = lo + wn;
-    idx = gallopBound(spikeTimes, lo, idx);
+    idx = lowerBoundNear(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       rel[i] = r;
@@ -168,13 +179,16 @@ export function lightResponse(
   let sumO = 0;
   let sumO2 = 0;
   idx = 0;
-  for (let i = 0; i < n; i++) {
-    const lo = sch.offset[i];
-    // Offsets inside the test window are covered by the test window's own zero-jitter check.
-    if (!Number.isFinite(lo) || lo < sch.onset[i] + sch.windowEndS) continue;
+  // Offsets inside the test window are covered by the test window's own zero-jitter check:
+  // only the pulses of sch.offsetPulses (offset at or after the test window's end) are read.
+  const offList = sch.offsetPulses;
+  const offset = sch.offset;
+  for (let k = 0; k < offList.length; k++) {
+    const i = offList[k];
+    const lo = offset[i];
     offsetPulses++;
     const hi = lo + offsetWindowS;
-    idx = gallopBound(spikeTimes, lo, idx);
+    idx = lowerBoundNear(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       offsetAnswered++;
@@ -206,18 +220,25 @@ export function lightResponse(
     let baseSpikes = 0;
     let baseAnswered = 0;
     let hint = 0;
+    // Test row: the first-spike class of every SALT pulse.
+    const saltPulses = sch.saltPulses;
     for (let k = 0; k < m; k++) {
-      const i = sch.saltPulses[k];
-      const r = rel[i];
+      const r = rel[saltPulses[k]];
       if (r === r) {
         let b = Math.floor(r / binS);
         if (b >= nBins) b = nBins - 1;
         counts[1 + b]++;
       } else counts[0]++;
-      const start = sch.anchor[i] - J * wn;
-      const end = sch.anchor[i];
+    }
+    // Baseline rows: the blocks in time order, one forward walk over the spikes.
+    const order = sch.saltBlockOrder;
+    const anchor = sch.anchor;
+    for (let k = 0; k < m; k++) {
+      const end = anchor[order[k]];
+      const start = end - J * wn;
+      hint = lowerBoundNear(spikeTimes, start, hint);
+      if (hint >= ns || spikeTimes[hint] >= end) continue;
       let last = -1;
-      hint = gallopBound(spikeTimes, start, hint);
       for (let j = hint; j < ns; j++) {
         const t = spikeTimes[j];
         if (t >= end) break;
@@ -307,13 +328,15 @@ export function lightResponse(
   let frequencyReliability: Float64Array | undefined;
   let frequencyLatencyS: Float64Array | undefined;
   if (detail) {
-    latencyS = new Float64Array(n);
+    // Median and per-frequency figures from rel (no allocation per pulse; the
+    // per-pulse latencies are copied out only when detail is true).
+    if (detail === true) latencyS = new Float64Array(n);
     if (scratch.med.length < n) scratch.med = new Float64Array(n);
     const med = scratch.med;
     let got = 0;
     for (let i = 0; i < n; i++) {
       const l = rel[i] + ws;
-      latencyS[i] = l;
+      if (latencyS) latencyS[i] = l;
       if (l === l) med[got++] = l;
     }
     if (got) medianLatencyS = got % 2 ? selectKth(med, got, (got - 1) / 2) : medianOfEven(med, got);
@@ -324,9 +347,10 @@ export function lightResponse(
     for (let i = 0; i < n; i++) {
       const f = sch.frequencyIndex[i];
       frequencyPulses[f]++;
-      if (latencyS[i] === latencyS[i]) {
+      const l = rel[i] + ws;
+      if (l === l) {
         fAns[f]++;
-        fSum[f] += latencyS[i];
+        fSum[f] += l;
       }
     }
     frequencyReliability = new Float64Array(nf);
@@ -378,3 +402,4 @@ function medianOfEven(x: Float64Array, n: number): number {
   for (let i = 0; i < n / 2; i++) if (x[i] > lo) lo = x[i];
   return (lo + hi) / 2;
 }
+

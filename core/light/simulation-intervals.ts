@@ -41,10 +41,7 @@ export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): 
     }
   }
   const iv: [number, number][] = [];
-  for (let i = 0; i < sch.n; i++) {
-    const o = sch.offset[i];
-    if (Number.isFinite(o) && o >= sch.onset[i] + sch.windowEndS) iv.push([o, o + offsetWindowS]);
-  }
+  for (const i of sch.offsetPulses) iv.push([sch.offset[i], sch.offset[i] + offsetWindowS]);
   iv.sort((x, y) => x[0] - y[0] || x[1] - y[1]);
   const offset: number[] = [];
   for (const [a, b] of iv) {
