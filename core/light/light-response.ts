@@ -4,6 +4,7 @@ import { selectKth } from './select-kth';
 import { poissonSf } from '../stats/distributions/poisson';
 import type { Parameters } from '../defaults';
 import type { LightSchedule } from './light-schedule';
+import { saltBaseline, type SaltBaseline } from './salt-baseline';
 import { createSaltScratch, saltTest, type SaltResult, type SaltScratch } from './salt-test';
 
 /** One unit's answer to the session's pulses. Times in seconds, rates in Hz. */
@@ -57,7 +58,7 @@ export interface LightResponse {
   readonly latencyS?: Float64Array;
 }
 
-/** Reusable buffers of lightResponse (one per thread of work; grow on demand). */
+/** Reusable buffers of lightResponse and ruleTrust (one per thread of work; grow on demand). */
 export interface LightScratch {
   rel: Float64Array;
   /** Latencies for the median (selection reorders it). */
@@ -65,11 +66,13 @@ export interface LightScratch {
   counts: Int32Array;
   fine: Int32Array;
   salt: SaltScratch;
+  /** ruleTrust: simulated spikes (test, baseline, offset stretches) and the power search's draws. */
+  sim: Float64Array<ArrayBuffer>[];
 }
 
-/** Empty scratch space for lightResponse. */
+/** Empty scratch space for lightResponse and ruleTrust. */
 export function createLightScratch(): LightScratch {
-  return { rel: new Float64Array(0), med: new Float64Array(0), counts: new Int32Array(0), fine: new Int32Array(0), salt: createSaltScratch() };
+  return { rel: new Float64Array(0), med: new Float64Array(0), counts: new Int32Array(0), fine: new Int32Array(0), salt: createSaltScratch(), sim: [] };
 }
 
 /**
@@ -99,6 +102,10 @@ export function createLightScratch(): LightScratch {
  *
  * saltMinExcess: SALT is skipped (p NaN) when the excess reliability is below
  * it (the trust simulation's shortcut: such a unit cannot be `tagged`).
+ * baseline: SALT's baseline half (saltBaseline) of a train with the same
+ * spikes in the baseline blocks, used instead of scanning them (the trust
+ * simulation's responders: same null train, added spikes after the pulses);
+ * the result is then that of the train with those baseline spikes.
  *
  * detail: false gives no median, per-frequency figures or per-pulse
  * latencies; 'summary' the median and per-frequency figures; true also the
@@ -122,6 +129,7 @@ export function lightResponse(
   detail: boolean | 'summary' = false,
   scratch: LightScratch = createLightScratch(),
   saltMinExcess = -Infinity,
+  baseline?: SaltBaseline,
 ): LightResponse {
   const n = sch.n;
   const ns = spikeTimes.length;
@@ -217,9 +225,6 @@ export function lightResponse(
     if (scratch.counts.length < size) scratch.counts = new Int32Array(size);
     const counts = scratch.counts;
     counts.fill(0, 0, size);
-    let baseSpikes = 0;
-    let baseAnswered = 0;
-    let hint = 0;
     // Test row: the first-spike class of every SALT pulse.
     const saltPulses = sch.saltPulses;
     for (let k = 0; k < m; k++) {
@@ -230,37 +235,14 @@ export function lightResponse(
         counts[1 + b]++;
       } else counts[0]++;
     }
-    // Baseline rows: the blocks in time order, one forward walk over the spikes.
-    const order = sch.saltBlockOrder;
-    const anchor = sch.anchor;
-    for (let k = 0; k < m; k++) {
-      const end = anchor[order[k]];
-      const start = end - J * wn;
-      hint = lowerBoundNear(spikeTimes, start, hint);
-      if (hint >= ns || spikeTimes[hint] >= end) continue;
-      let last = -1;
-      for (let j = hint; j < ns; j++) {
-        const t = spikeTimes[j];
-        if (t >= end) break;
-        baseSpikes++;
-        let w = Math.floor((t - start) / wn);
-        if (w >= J) w = J - 1;
-        if (w === last) continue;
-        last = w;
-        const r0 = t - (start + w * wn);
-        let b = Math.floor(r0 / binS);
-        if (b >= nBins) b = nBins - 1;
-        if (b < 0) b = 0;
-        counts[(1 + w) * classes + 1 + b]++;
-        baseAnswered++;
-      }
-    }
-    for (let w = 0; w < J; w++) {
-      let c = 0;
-      const o = (1 + w) * classes;
-      for (let b = 1; b < classes; b++) c += counts[o + b];
-      counts[o] = m - c;
-    }
+    // Baseline rows 1..J (scanned here, or the caller's for a train with the same baseline spikes).
+    let base: SaltBaseline;
+    if (baseline) {
+      counts.set(baseline.rows.subarray(0, J * classes), classes);
+      base = baseline;
+    } else base = saltBaseline(spikeTimes, sch, counts.subarray(classes, size));
+    const baseSpikes = base.spikes;
+    const baseAnswered = base.answered;
     if (answered / n - baseAnswered / (m * J) >= saltMinExcess) salt = saltTest(counts, J + 1, classes, m, scratch.salt);
     baselineHz = baseSpikes / (m * J * wn);
     baselineSource = 'salt-windows';

@@ -1,3 +1,9 @@
+import { zigguratTables } from './ziggurat-tables';
+
+const ZIG = zigguratTables();
+const ZE = ZIG.exponential;
+const ZN = ZIG.normal;
+
 /**
  * Seeded pseudo-random numbers for simulation, bootstrap and permutation.
  * Core never uses unseeded randomness: every caller passes a seed, so every
@@ -96,6 +102,78 @@ export class Rng {
       const u = this.uniform();
       if (u < 1 - 0.0331 * x * x * x * x) return d * v;
       if (Math.log(u) < 0.5 * x * x + d * (1 - v + Math.log(v))) return d * v;
+    }
+  }
+
+  /**
+   * Exponential with mean 1 by the ziggurat method (Marsaglia & Tsang 2000;
+   * tables in ziggurat-tables.ts): one 32-bit draw (8 bits choose the layer,
+   * 24 bits the position) and no logarithm for ~98.9 % of draws; the tail
+   * beyond r = 7.697 by r + Exp(1) (memoryless). A different stream from
+   * exponential(), which existing callers keep. About 4x faster here.
+   */
+  exponentialZiggurat(): number {
+    for (;;) {
+      const a = this.nextUint32();
+      const i = a & 255;
+      const j = a >>> 8;
+      if (j < ZE.k[i]) return j * ZE.w[i];
+      if (i === 0) return ZE.r - Math.log(1 - this.uniform());
+      const x = j * ZE.w[i];
+      if (ZE.f[i] + this.uniform() * (ZE.f[i - 1] - ZE.f[i]) < Math.exp(-x)) return x;
+    }
+  }
+
+  /**
+   * Standard normal by the ziggurat method (Marsaglia & Tsang 2000): one
+   * 32-bit draw (7 bits layer, 1 bit sign, 24 bits position) for ~98.8 % of
+   * draws; tail beyond r = 3.443 by Marsaglia's exponential rejection. A
+   * different stream from normal().
+   */
+  normalZiggurat(): number {
+    for (;;) {
+      const a = this.nextUint32();
+      const i = a & 127;
+      const s = a & 128 ? -1 : 1;
+      const j = a >>> 8;
+      if (j < ZN.k[i]) return s * j * ZN.w[i];
+      if (i === 0) {
+        let x: number;
+        let y: number;
+        do {
+          x = -Math.log(1 - this.uniform()) / ZN.r;
+          y = -Math.log(1 - this.uniform());
+        } while (y + y < x * x);
+        return s * (ZN.r + x);
+      }
+      const x = j * ZN.w[i];
+      if (ZN.f[i] + this.uniform() * (ZN.f[i - 1] - ZN.f[i]) < Math.exp(-0.5 * x * x)) return s * x;
+    }
+  }
+
+  /**
+   * Gamma(shape, scale 1) by Marsaglia & Tsang (2000, ACM TOMS 26:363) on
+   * ziggurat normals; shape 1 is exponentialZiggurat(); shape < 1 by
+   * Gamma(shape + 1) x U^(1/shape) with U^(1/shape) = exp(-E / shape),
+   * E ~ Exp(1) (the same paper's boost). A different stream from gamma().
+   */
+  gammaZiggurat(shape: number): number {
+    if (shape === 1) return this.exponentialZiggurat();
+    if (shape < 1) return this.gammaZiggurat(shape + 1) * Math.exp(-this.exponentialZiggurat() / shape);
+    const d = shape - 1 / 3;
+    const c = 1 / Math.sqrt(9 * d);
+    for (;;) {
+      let x: number;
+      let v: number;
+      do {
+        x = this.normalZiggurat();
+        v = 1 + c * x;
+      } while (v <= 0);
+      v = v * v * v;
+      const u = this.uniform();
+      const x2 = x * x;
+      if (u < 1 - 0.0331 * x2 * x2) return d * v;
+      if (Math.log(u) < 0.5 * x2 + d * (1 - v + Math.log(v))) return d * v;
     }
   }
 
