@@ -1,14 +1,6 @@
-/** The tool's version, from package.json (read once). */
-import { readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-
-let cached: string | undefined;
+/** The tool's version, from tagbench's package.json (see project-root.ts). */
+import { projectRoot } from './project-root';
 
 export function toolVersion(): string {
-  if (cached === undefined) {
-    const pkg = JSON.parse(readFileSync(join(dirname(fileURLToPath(import.meta.url)), '../../package.json'), 'utf8')) as { version: string };
-    cached = pkg.version;
-  }
-  return cached;
+  return projectRoot().version;
 }
