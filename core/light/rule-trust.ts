@@ -161,20 +161,33 @@ function lengthOf(iv: Float64Array): number {
  * trustCell) on this session's own pulse schedule (issue 3, item 7).
  *
  * Null units: stationary gamma renewal trains (2 ms dead time plus a gamma
- * interval of shape 1 / CV^2; the dead time makes the simulated CV slightly
- * smaller, by 1 - rate x 2 ms), no light effect, simulated only where the
- * analysis looks (simulationIntervals): the test windows laid end to end,
- * then the SALT baseline windows, then the offset windows, likewise (three
- * independent stretches of one process: dependence between a test window and
- * the baseline just before it is not carried over). Each unit goes through the
- * very rule the real units get (lightResponse, artefactFlags, tagVerdict; no
- * waveforms). Screens (when the test windows are disjoint): `tagged` needs an
- * excess reliability (test-window reliability minus the baseline windows'
- * spike probability) >= minEvokedReliability, and both are counted while the
- * spikes are simulated (windows with a spike), so a unit below it (with a
- * 0.001 margin for window edges computed two ways) is counted as not tagged
- * without the rest of the rule: exact, and nearly every null unit stops there.
- * falseRate = share called `tagged` (resolution
+ * interval of shape 1 / CV^2, drawn by Rng.gammaZiggurat; the dead time makes
+ * the simulated CV slightly smaller, by 1 - rate x 2 ms), no light effect,
+ * simulated only where the analysis looks (simulationIntervals): the test
+ * windows laid end to end, the SALT baseline blocks likewise, and the offset
+ * windows (three independent stretches of one process: dependence between a
+ * test window and the baseline just before it is not carried over). Each unit
+ * goes through the very rule the real units get (lightResponse, artefactFlags,
+ * tagVerdict; no waveforms).
+ *
+ * Shared baselines: max(trustPowerSimulations, ceil(trustNullSimulations / 5))
+ * baseline stretches are simulated, and null unit s takes stretch s mod that
+ * number (the power units each their own): every null unit's train has the
+ * same law as with a stretch of its own, so falseRate stays an unbiased
+ * estimate; units sharing a stretch are dependent only through it (its SALT
+ * rows and rate are measured over the J x pulses baseline windows, far more
+ * than the test windows, so the spread of falseRate stays near the binomial
+ * one: test/core/light/rule-trust.test.ts compares both with the earlier
+ * model, which simulated a stretch per unit). The baseline was ~70 % of the
+ * draws; each stretch's SALT half (saltBaseline) is computed once.
+ *
+ * Screens (when the test windows are disjoint): `tagged` needs an excess
+ * reliability (test-window reliability minus the baseline windows' spike
+ * probability) >= minEvokedReliability; the test windows with a spike are
+ * counted while they are simulated and the baseline's are known, so a unit
+ * below it (with a 0.001 margin for window edges computed two ways) is counted
+ * as not tagged without the rest of the rule: exact, and nearly every null
+ * unit stops there. falseRate = share called `tagged` (resolution
  * 1 / trustNullSimulations). When SALT cannot run on the schedule the rule
  * cannot call `tagged` at all: falseRate 0 and power NaN without simulation.
  *
@@ -185,7 +198,10 @@ function lengthOf(iv: Float64Array): number {
  * stops once its answer (power >= trustPower or not) is certain, so `power`
  * lists bounds: the value shown is >= trustPower for a passed step and below
  * it for a failed one. minDetectableReliability = smallest grid R with power
- * >= trustPower.
+ * >= trustPower. A responder differs from its null train only after the
+ * pulses, so lightResponse reads its test and offset spikes and takes the null
+ * stretch's SALT half (exact; the whole train instead if an added spike ever
+ * falls in a baseline block, or when offset windows reach into blocks).
  *
  * Seeded by light.seed and the node's rate and CV (not a unit's position), so
  * the numbers do not change when other units are added; bit-for-bit

@@ -108,7 +108,7 @@ function cases(): Case[] {
   const rng = new Rng(909);
   const add = (name: string, pulses: ReturnType<typeof makePulses>, p: Parameters['light'], extra: (sch: LightSchedule) => Float64Array[]) => {
     const sch = lightSchedule(pulses.pulses, [0, pulses.endS], p);
-    const trains = [new Float64Array(0), Float64Array.of(pulses.pulses.onset[0] + 0.003)];
+    const trains: Float64Array[] = [new Float64Array(0), Float64Array.of(pulses.pulses.onset[0] + 0.003)];
     for (const rate of [0.5, 4, 40]) trains.push(simulateUnit(rng, pulses.pulses, pulses.endS, rate, rate > 10 ? 0.5 : 1, { reliability: 0.4, latencyMs: 4, jitterMs: 1.5 }));
     trains.push(...extra(sch));
     out.push({ name, sch, p, trains });
