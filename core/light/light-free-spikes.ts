@@ -1,10 +1,10 @@
-import { gallopBound } from '../align/gallop-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 
 /**
  * The spikes outside light-affected time (schedule.lightIntervals, merged and
  * sorted [a0, b0, a1, b1, ...], half-open [a, b)), and the coefficient of
  * variation of the ISIs between consecutive light-free spikes that no light
- * interval separates. One galloping search per interval edge and one tight
+ * interval separates. One search per interval edge from the previous one (lowerBoundNear: a few steps, then galloping) and one tight
  * pass over the light-free spikes.
  *
  * CV = SD (n - 1) / mean of those ISIs; NaN with fewer than 2 ISIs. Poisson
@@ -23,10 +23,10 @@ export function lightFreeSpikes(spikeTimes: Float64Array, lightIntervals: Float6
   let s2 = 0;
   let m = 0;
   // Light-free stretches [b_(k-1), a_k) one by one: a contiguous range of spike indices
-  // each, found by galloping from the previous one; ISIs only inside a range.
+  // each, found by searching on from the previous one; ISIs only inside a range.
   let from = 0;
   for (let k = 0; k <= nk; k += 2) {
-    const to = k < nk ? gallopBound(spikeTimes, lightIntervals[k], from) : ns;
+    const to = k < nk ? lowerBoundNear(spikeTimes, lightIntervals[k], from) : ns;
     if (to > from) {
       if (keepSpikes) out.set(spikeTimes.subarray(from, to), n);
       n += to - from;
@@ -40,7 +40,7 @@ export function lightFreeSpikes(spikeTimes: Float64Array, lightIntervals: Float6
       }
       m += to - from - 1;
     }
-    if (k < nk) from = gallopBound(spikeTimes, lightIntervals[k + 1], to);
+    if (k < nk) from = lowerBoundNear(spikeTimes, lightIntervals[k + 1], to);
   }
   let isiCv = NaN;
   if (m >= 2) {

@@ -36,29 +36,22 @@ export const POWER_GRID = [0.05, 0.1, 0.15, 0.2, 0.3, 0.4, 0.5, 0.7, 1] as const
 const REFRACTORY_S = TRUST_REFRACTORY_S;
 
 /**
- * Spikes of a stationary gamma renewal process (dead time + gamma) on the merged
- * intervals laid end to end, written into buf; also counts the cells that got
- * at least one spike (each interval is cut into `cells` cells of cellS from its
- * start, cell floor((t - start) / cellS) clamped to the last: the SALT windows
- * of a baseline block, the same formula as saltBaseline; one cell per interval
- * with the defaults), and stops (incomplete) once that count exceeds
- * stopAtHits. Starts 10 mean ISIs early (stationary). Gamma intervals by
- * Rng.gammaZiggurat (shape 1: exponentialZiggurat).
+ * Spikes of a stationary gamma renewal process (dead time + theta x Gamma(shape))
+ * on the merged intervals laid end to end, written into buf; also counts the
+ * intervals that got at least one spike. Starts 10 mean ISIs early
+ * (stationary). Gamma draws come in order from `draws` (one stream per node).
  */
 function simulateOn(
-  rng: Rng,
+  draws: GammaDraws,
   rateHz: number,
-  shape: number,
   intervals: Float64Array,
   totalS: number,
   buf: Float64Array<ArrayBuffer>,
-  stopAtHits = Infinity,
-  cells = 1,
-  cellS = Infinity,
 ): { buf: Float64Array<ArrayBuffer>; n: number; hit: number } {
   if (!(rateHz > 0) || intervals.length === 0) return { buf, n: 0, hit: 0 };
-  const theta = (1 / rateHz - REFRACTORY_S) / shape;
-  const exp = shape === 1;
+  const theta = (1 / rateHz - REFRACTORY_S) / draws.shape;
+  let g = draws.buf;
+  let pos = draws.pos;
   let tau = -10 / rateHz;
   let n = 0;
   let k = 0;
@@ -66,9 +59,13 @@ function simulateOn(
   let len = intervals[1] - intervals[0];
   let hit = 0;
   let lastK = -1;
-  let lastCell = -1;
   for (;;) {
-    tau += REFRACTORY_S + theta * (exp ? rng.exponentialZiggurat() : rng.gammaZiggurat(shape));
+    if (pos === g.length) {
+      draws.refill();
+      g = draws.buf;
+      pos = 0;
+    }
+    tau += REFRACTORY_S + theta * g[pos++];
     if (tau >= totalS) break;
     if (tau < 0) continue;
     while (tau >= cum + len) {
@@ -76,25 +73,37 @@ function simulateOn(
       k += 2;
       len = intervals[k + 1] - intervals[k];
     }
-    const t = intervals[k] + (tau - cum);
-    let c = 0;
-    if (cells > 1) {
-      c = Math.floor((t - intervals[k]) / cellS);
-      if (c >= cells) c = cells - 1;
-    }
-    if (k !== lastK || c !== lastCell) {
-      if (++hit > stopAtHits) break;
+    if (k !== lastK) {
+      hit++;
       lastK = k;
-      lastCell = c;
     }
     if (n === buf.length) {
-      const g = new Float64Array(buf.length * 2 + 16);
-      g.set(buf);
-      buf = g;
+      const grown = new Float64Array(buf.length * 2 + 16);
+      grown.set(buf);
+      buf = grown;
     }
-    buf[n++] = t;
+    buf[n++] = intervals[k] + (tau - cum);
   }
+  draws.pos = pos;
   return { buf, n, hit };
+}
+
+/** Gamma(shape) draws in blocks (Rng.fillGammaZiggurat), read in order by simulateOn. */
+class GammaDraws {
+  buf: Float64Array;
+  pos: number;
+  constructor(
+    private readonly rng: Rng,
+    readonly shape: number,
+    buf: Float64Array,
+  ) {
+    this.buf = buf;
+    this.pos = buf.length;
+  }
+  refill(): void {
+    this.rng.fillGammaZiggurat(this.buf, this.shape);
+    this.pos = 0;
+  }
 }
 
 /**
@@ -119,6 +128,18 @@ function insertionSort(x: Float64Array): void {
       return;
     }
   }
+}
+
+/** Whether any [onset + a, onset + b] (onsets sorted) meets a sorted list of intervals [a0, b0, ...] (within EDGE_S). */
+function windowsReach(onset: Float64Array, a: number, b: number, iv: Float64Array): boolean {
+  let j = 0;
+  for (let i = 0; i < onset.length; i++) {
+    const lo = onset[i] + a;
+    const hi = onset[i] + b;
+    while (j < iv.length && iv[j + 1] + EDGE_S <= lo) j += 2;
+    if (j < iv.length && iv[j] - EDGE_S <= hi) return true;
+  }
+  return false;
 }
 
 /** Whether any time of a sorted list falls inside (or within EDGE_S of) a sorted list of intervals [a0, b0, ...]. */
@@ -225,6 +246,7 @@ export function ruleTrust(
   if (sch.windows === 0) return { ...base, nullSimulations: 0, falseTagged: 0, screenedOut: 0, falseRate: 0, minDetectableReliability: NaN, power: [] };
 
   const rng = new Rng(seed);
+  const draws = new GammaDraws(rng, shape, new Float64Array(1024));
   const J = sch.windows;
   const m = sch.saltPulses.length;
   const testS = lengthOf(iv.test);
@@ -258,6 +280,22 @@ export function ruleTrust(
     return tagVerdict(r, NaN, artefactFlags(r, NaN, p), p, sch.saltProblem).tag === 'tagged';
   };
 
+  // Power search draws, common random numbers: for responder s and pulse i, u decides
+  // whether the pulse gets an added spike (u < R) and z its Gaussian latency; both
+  // drawn once (their own stream), so they are the same at every R.
+  const u = buffer(3, nPow * n).subarray(0, nPow * n);
+  const z = buffer(4, nPow * n).subarray(0, nPow * n);
+  const prng = new Rng(seed ^ 0x5bd1e995);
+  prng.fillUniform(u);
+  prng.fillNormalZiggurat(z);
+  const lat = p.trustPowerLatencyMs / 1000;
+  const jit = p.trustPowerJitterMs / 1000;
+  let latestS = 0;
+  for (let k = 0; k < nPow * n; k++) latestS = Math.max(latestS, lat + jit * z[k]);
+  // Can an added spike (onset + 0.2 ms ... onset + latestS) fall in a baseline block? Then
+  // the power units' baseline spikes are kept for that responder's whole train.
+  const reach = nPow > 0 && windowsReach(sch.onset, 0.0002, Math.max(0.0002, latestS), iv.base);
+
   // Baseline stretches, each shared by at most BASELINE_SHARE null units (unit s uses
   // baseline s mod nBase; the power units s < nPow their own). Kept: SALT's baseline
   // half of each, and the spikes of those a train may need whole (the power units',
@@ -267,11 +305,11 @@ export function ruleTrust(
   const baseRows: SaltBaseline[] = [];
   const baseTrain: Float64Array[] = [];
   for (let b = 0; b < nBase; b++) {
-    const sim = simulateOn(rng, rateHz, shape, iv.base, baseS, baseBuf);
+    const sim = simulateOn(draws, rateHz, iv.base, baseS, baseBuf);
     baseBuf = sim.buf;
     const train = baseBuf.subarray(0, sim.n);
     baseRows.push(saltBaseline(train, sch));
-    baseTrain.push(b < nPow || overlap ? train.slice() : new Float64Array(0));
+    baseTrain.push((b < nPow && reach) || overlap ? train.slice() : new Float64Array(0));
   }
 
   // Margin of the screens: window edges computed two ways may differ in the last bit.
@@ -283,7 +321,7 @@ export function ruleTrust(
   let falseTagged = 0;
   let screenedOut = 0;
   for (let s = 0; s < nNull; s++) {
-    const t = simulateOn(rng, rateHz, shape, iv.test, testS, testBuf);
+    const t = simulateOn(draws, rateHz, iv.test, testS, testBuf);
     testBuf = t.buf;
     const power = s < nPow;
     const b = s % nBase;
@@ -294,7 +332,7 @@ export function ruleTrust(
       screenedOut++;
       continue;
     }
-    const o = simulateOn(rng, rateHz, shape, iv.offset, offS, offBuf);
+    const o = simulateOn(draws, rateHz, iv.offset, offS, offBuf);
     offBuf = o.buf;
     if (merged2.length < t.n + o.n) merged2 = new Float64Array(t.n + o.n);
     let spikes = merge(merged2, testBuf, t.n, offBuf, o.n);
@@ -307,18 +345,7 @@ export function ruleTrust(
   scratch.sim[1] = baseBuf;
   scratch.sim[2] = offBuf;
 
-  // Power search with common random numbers: for responder s and pulse i, u decides
-  // whether the pulse gets an added spike (u < R) and z its Gaussian latency; both
-  // drawn once (their own stream), so they are the same at every R.
-  const u = buffer(3, nPow * n);
-  const z = buffer(4, nPow * n);
-  const prng = new Rng(seed ^ 0x5bd1e995);
-  for (let k = 0; k < nPow * n; k++) {
-    u[k] = prng.uniform();
-    z[k] = prng.normalZiggurat();
-  }
-  const lat = p.trustPowerLatencyMs / 1000;
-  const jit = p.trustPowerJitterMs / 1000;
+  // Power search (u, z and lat, jit above).
   const added = buffer(5, n);
   const powerAt = new Map<number, number>();
   // Power at one grid step, stopping as soon as the verdict on trustPower is certain
@@ -339,7 +366,7 @@ export function ruleTrust(
       let train = mergeInto(keep[s], keep[s].length, add, m);
       // The responder's baseline half is its null train's unless an added spike fell in a block.
       let sb: SaltBaseline | undefined = overlap ? undefined : baseRows[s];
-      if (sb && anyInside(add, iv.base)) {
+      if (sb && reach && anyInside(add, iv.base)) {
         train = merge(new Float64Array(train.length + baseTrain[s].length), train, train.length, baseTrain[s], baseTrain[s].length);
         sb = undefined;
       }

@@ -159,9 +159,43 @@ export class Rng {
    */
   gammaZiggurat(shape: number): number {
     if (shape === 1) return this.exponentialZiggurat();
-    if (shape < 1) return this.gammaZiggurat(shape + 1) * Math.exp(-this.exponentialZiggurat() / shape);
-    const d = shape - 1 / 3;
+    const a = shape < 1 ? shape + 1 : shape;
+    const d = a - 1 / 3;
+    const g = this.marsagliaTsang(d, 1 / Math.sqrt(9 * d));
+    return shape < 1 ? g * Math.exp(-this.exponentialZiggurat() / shape) : g;
+  }
+
+  /**
+   * Fills `out` with gammaZiggurat(shape) draws, in order (the same numbers as
+   * out.length calls): the loop runs inside the generator, so no draw is
+   * boxed on its way to the caller (a simulation's hot loop reads them from
+   * the array).
+   */
+  fillGammaZiggurat(out: Float64Array, shape: number): void {
+    const len = out.length;
+    if (shape === 1) {
+      for (let i = 0; i < len; i++) out[i] = this.exponentialZiggurat();
+      return;
+    }
+    const a = shape < 1 ? shape + 1 : shape;
+    const d = a - 1 / 3;
     const c = 1 / Math.sqrt(9 * d);
+    if (shape < 1) for (let i = 0; i < len; i++) out[i] = this.marsagliaTsang(d, c) * Math.exp(-this.exponentialZiggurat() / shape);
+    else for (let i = 0; i < len; i++) out[i] = this.marsagliaTsang(d, c);
+  }
+
+  /** Fills `out` with uniform() draws, in order (a loop inside the generator: nothing boxed). */
+  fillUniform(out: Float64Array): void {
+    for (let i = 0; i < out.length; i++) out[i] = this.uniform();
+  }
+
+  /** Fills `out` with normalZiggurat() draws, in order (a loop inside the generator: nothing boxed). */
+  fillNormalZiggurat(out: Float64Array): void {
+    for (let i = 0; i < out.length; i++) out[i] = this.normalZiggurat();
+  }
+
+  /** Marsaglia & Tsang's rejection step for Gamma(d + 1/3), c = 1 / sqrt(9 d). */
+  private marsagliaTsang(d: number, c: number): number {
     for (;;) {
       let x: number;
       let v: number;

@@ -101,6 +101,17 @@ describe('ziggurat samplers: distribution (KS test of @stdlib/stats-kstest again
     expect(Math.abs(mu - mean)).toBeLessThan(5 * Math.sqrt(variance / m));
     expect(Math.abs(s2 / m - mu * mu - variance) / variance).toBeLessThan(0.03);
   });
+  it.each([1, 4, 0.25, 0.5])('fillGammaZiggurat(%s) gives the numbers of as many gammaZiggurat calls; fillUniform and fillNormalZiggurat likewise', (shape) => {
+    const a = new Rng(11);
+    const b = new Rng(11);
+    const filled = new Float64Array(3000);
+    a.fillGammaZiggurat(filled, shape);
+    expect(Array.from(filled)).toEqual(Array.from({ length: 3000 }, () => b.gammaZiggurat(shape)));
+    a.fillUniform(filled);
+    expect(Array.from(filled)).toEqual(Array.from({ length: 3000 }, () => b.uniform()));
+    a.fillNormalZiggurat(filled);
+    expect(Array.from(filled)).toEqual(Array.from({ length: 3000 }, () => b.normalZiggurat()));
+  });
   it('is reproducible for a seed, and leaves the existing streams alone', () => {
     const a = sample(3, (r) => r.gammaZiggurat(4));
     const b = sample(3, (r) => r.gammaZiggurat(4));
