@@ -160,7 +160,14 @@ export function lightResponse(
   for (let i = 0; i < n; i++) {
     const lo = onset[i] + ws;
     const hi = lo + wn;
-    idx = lowerBoundNear(spikeTimes, lo, idx);
+    // lowerBoundNear(spikeTimes, lo, idx), its usual case (a few steps forward) written out:
+    // a call per pulse cost more than the walk.
+    if (idx < ns && spikeTimes[idx] < lo) {
+      let q = 0;
+      do idx++;
+      while (idx < ns && spikeTimes[idx] < lo && ++q < 8);
+      if (idx < ns && spikeTimes[idx] < lo) idx = lowerBoundNear(spikeTimes, lo, idx);
+    } else if (idx > 0 && spikeTimes[idx - 1] >= lo) idx = lowerBoundNear(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       rel[i] = r;
@@ -315,26 +322,24 @@ export function lightResponse(
     if (detail === true) latencyS = new Float64Array(n);
     if (scratch.med.length < n) scratch.med = new Float64Array(n);
     const med = scratch.med;
-    let got = 0;
-    for (let i = 0; i < n; i++) {
-      const l = rel[i] + ws;
-      if (latencyS) latencyS[i] = l;
-      if (l === l) med[got++] = l;
-    }
-    if (got) medianLatencyS = got % 2 ? selectKth(med, got, (got - 1) / 2) : medianOfEven(med, got);
     const nf = sch.frequencyKeys.length;
     frequencyPulses = new Float64Array(nf);
     const fAns = new Float64Array(nf);
     const fSum = new Float64Array(nf);
+    const fIndex = sch.frequencyIndex;
+    let got = 0;
     for (let i = 0; i < n; i++) {
-      const f = sch.frequencyIndex[i];
-      frequencyPulses[f]++;
       const l = rel[i] + ws;
+      if (latencyS) latencyS[i] = l;
+      const f = fIndex[i];
+      frequencyPulses[f]++;
       if (l === l) {
+        med[got++] = l;
         fAns[f]++;
         fSum[f] += l;
       }
     }
+    if (got) medianLatencyS = got % 2 ? selectKth(med, got, (got - 1) / 2) : medianOfEven(med, got);
     frequencyReliability = new Float64Array(nf);
     frequencyLatencyS = new Float64Array(nf);
     for (let f = 0; f < nf; f++) {

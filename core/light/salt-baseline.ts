@@ -48,7 +48,14 @@ export function saltBaseline(spikeTimes: Float64Array, sch: LightSchedule, rows?
   for (let k = 0; k < m; k++) {
     const end = anchor[order[k]];
     const start = end - J * wn;
-    hint = lowerBoundNear(spikeTimes, start, hint);
+    // lowerBoundNear(spikeTimes, start, hint), its usual case (a few steps forward) written out:
+    // a call per block cost more than the walk.
+    if (hint < ns && spikeTimes[hint] < start) {
+      let q = 0;
+      do hint++;
+      while (hint < ns && spikeTimes[hint] < start && ++q < 8);
+      if (hint < ns && spikeTimes[hint] < start) hint = lowerBoundNear(spikeTimes, start, hint);
+    } else if (hint > 0 && spikeTimes[hint - 1] >= start) hint = lowerBoundNear(spikeTimes, start, hint);
     if (hint >= ns || spikeTimes[hint] >= end) continue;
     let last = -1;
     let j = hint;
