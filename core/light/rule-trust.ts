@@ -20,7 +20,7 @@ export interface RuleTrust {
   /** Null units simulated and how many the rule called `tagged`. */
   readonly nullSimulations: number;
   readonly falseTagged: number;
-  /** Null units whose test windows alone ruled out `tagged` (reliability < minEvokedReliability). */
+  /** Null units the excess-reliability screens ruled out (test-window reliability, or it minus the baseline's spike probability, < minEvokedReliability). */
   readonly screenedOut: number;
   /** falseTagged / nullSimulations. */
   readonly falseRate: number;
