@@ -9,7 +9,7 @@
  * show whether the results stayed bit-identical (`diff a.json b.json`).
  *
  * Run: npx tsx bench/steps-bench.ts [ramp jump cluster quality] [--reps 3] [--digest out.json] [--profile dir]
- * --profile writes a V8 CPU profile of each step's first run alone
+ * --profile writes a V8 CPU profile of each step's first run alone (--profile-run 1: its second, warm)
  * (<dir>/<step>.cpuprofile, node:inspector; open in Chrome DevTools) and
  * prints its top functions by self time.
  * Never asserts; prints figures.
@@ -32,6 +32,7 @@ const valueOf = (name: string): string | undefined => {
 const digestFile = valueOf('--digest');
 const profileDir = valueOf('--profile');
 const reps = Number(valueOf('--reps') ?? 1);
+const profileRun = Number(valueOf('--profile-run') ?? 0); // which run of each step to profile (0 = the first, cold)
 const names = args.filter((a, i) => !a.startsWith('--') && !(i > 0 && args[i - 1].startsWith('--')));
 const wanted = names.length > 0 ? names : ['ramp', 'jump', 'cluster', 'quality'];
 
@@ -57,7 +58,7 @@ for (const name of wanted) {
   if (!step) throw new Error(`no step ${name}; steps: ${STEPS.map((x) => x.name).join(', ')}`);
   const times: string[] = [];
   for (let r = 0; r < Math.max(1, reps); r++) {
-    const session = profileDir && r === 0 ? new Session() : null;
+    const session = profileDir && r === profileRun ? new Session() : null;
     if (session) {
       session.connect();
       await session.post('Profiler.enable');

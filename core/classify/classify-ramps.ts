@@ -107,7 +107,7 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
       for (let u = 0; u < nUnits; u++) {
         const r = isReference
           ? units[u]
-          : unitRamp(recording.units[u].spikeTimes, cp, cBuffer, Infinity, params.exactMaxN);
+          : unitRamp(recording.units[u].spikeTimes, cp, cBuffer, Infinity, params.exactMaxN, false);
         slope[u] = r.slopeHzPerS;
         if (hasReference && !isReference && cp.nTrials >= 2 && plan.nTrials >= 2) diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;
       }
@@ -117,9 +117,13 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   return { verdict, reason, q, units, conditions, centresS, note: plan.note, nTrials: plan.nTrials, mode: plan.mode };
 }
 
-/** One unit's ramp statistics under a plan: straight from the spikes for the fixed window, via counts and exposure when warped. */
-function unitRamp(spikeTimes: Float64Array, plan: RampPlan, buffer: Float64Array, minTrials: number, exactMaxN: number): RampUnitResult {
-  if (plan.mode === 'fixed') return rampUnitFromSpikes(spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS, minTrials, exactMaxN);
+/**
+ * One unit's ramp statistics under a plan: straight from the spikes for the
+ * fixed window, via counts and exposure when warped. tests = false: slopes
+ * only (the other conditions' comparison uses no GLM and no signed-rank test).
+ */
+function unitRamp(spikeTimes: Float64Array, plan: RampPlan, buffer: Float64Array, minTrials: number, exactMaxN: number, tests = true): RampUnitResult {
+  if (plan.mode === 'fixed') return rampUnitFromSpikes(spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS, minTrials, exactMaxN, tests);
   const c = rampCounts(spikeTimes, plan, buffer);
-  return rampUnit(c.counts, plan.nTrials, plan.centresS, plan.binS, minTrials, exactMaxN, c.exposureS);
+  return rampUnit(c.counts, plan.nTrials, plan.centresS, plan.binS, minTrials, exactMaxN, c.exposureS, tests);
 }

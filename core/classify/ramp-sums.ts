@@ -25,8 +25,12 @@ export interface RampSums {
   readonly totalE: number;
 }
 
-/** Effect sizes, signed-rank test and Poisson GLM from the sums (see rampUnit's header). */
-export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: number, exactMaxN: number): RampUnitResult {
+/**
+ * Effect sizes, signed-rank test and Poisson GLM from the sums (see rampUnit's
+ * header). tests = false skips the signed-rank test and the GLM (their fields
+ * are NaN, direction 0): the per-condition comparison needs only the slopes.
+ */
+export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: number, exactMaxN: number, tests = true): RampUnitResult {
   const { nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE } = sums;
   const nBins = centresS.length;
   let mx = 0;
@@ -41,7 +45,7 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     semRate[j] = Math.sqrt(Math.max(0, v) / nTrials);
   }
   const meanRateHz = nTrials > 0 && totalE > 0 ? total / totalE : NaN;
-  const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate) : null;
+  const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate, false) : null; // slope, intercept, R^2: no t test needed
   const third = Math.max(1, Math.floor(nBins / 3));
   let early = 0;
   let late = 0;
@@ -49,12 +53,12 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     early += meanRate[j];
     late += meanRate[nBins - 1 - j];
   }
-  const test = nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
+  const test = tests && nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
 
   let glmSlopePerS = NaN;
   let glmLrtP = NaN;
   let glmDispersion = NaN;
-  if (nTrials > 0 && total > 0 && nBins >= 2) {
+  if (tests && nTrials > 0 && total > 0 && nBins >= 2) {
     const X: number[] = new Array<number>(nBins * 2);
     const offset: number[] = new Array<number>(nBins);
     for (let j = 0; j < nBins; j++) {

@@ -14,7 +14,8 @@ import type { RampUnitResult } from './ramp-unit';
  *
  * Inputs: sorted spike times (s), alignment times (s; non-finite ones give an
  * empty trial, as binCounts), window start relative to them and bin width
- * (s), bin centres (s, nBins of them). See rampUnit for the statistics.
+ * (s), bin centres (s, nBins of them). See rampUnit for the statistics;
+ * tests = false leaves out the signed-rank test and the GLM (rampSummary).
  */
 export function rampUnitFromSpikes(
   spikeTimes: Float64Array,
@@ -24,6 +25,7 @@ export function rampUnitFromSpikes(
   centresS: Float64Array,
   minTrials: number,
   exactMaxN = 30,
+  tests = true,
 ): RampUnitResult {
   const nBins = centresS.length;
   const nTrials = alignTimes.length;
@@ -85,5 +87,5 @@ export function rampUnitFromSpikes(
   }
   const sums = equalExposureSums(binS, nTrials, nBins);
   const se: number[] = new Array<number>(nBins).fill(sums.perBin);
-  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE: sums.total }, centresS, minTrials, exactMaxN);
+  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE: sums.total }, centresS, minTrials, exactMaxN, tests);
 }

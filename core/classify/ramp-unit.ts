@@ -56,6 +56,7 @@ export interface RampUnitResult {
  *    dispersion well above 1 means its p is too small.
  *
  * exactMaxN: largest trial count for the exact signed-rank distribution.
+ * tests = false leaves out the signed-rank test and the GLM (NaN fields).
  */
 export function rampUnit(
   counts: Float64Array,
@@ -65,6 +66,7 @@ export function rampUnit(
   minTrials: number,
   exactMaxN = 30,
   exposureS?: Float64Array,
+  tests = true,
 ): RampUnitResult {
   const nBins = centresS.length;
   const trialSlopes = new Float64Array(nTrials);
@@ -138,5 +140,5 @@ export function rampUnit(
     se.fill(sums.perBin);
     totalE = sums.total;
   }
-  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE }, centresS, minTrials, exactMaxN);
+  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE }, centresS, minTrials, exactMaxN, tests);
 }

@@ -41,6 +41,16 @@ describe('rampUnitFromSpikes', () => {
       const dense = rampUnit(binCounts(st, align, -3, binS, nBins), align.length, centres, binS, 6, 30);
       const direct = rampUnitFromSpikes(st, align, -3, binS, centres, 6, 30);
       same(direct, dense, `rep ${rep}`);
+      // tests = false (the other conditions' slopes): the same slopes and rates, no GLM or signed-rank test.
+      const lite = rampUnitFromSpikes(st, align, -3, binS, centres, 6, 30, false);
+      const liteDense = rampUnit(binCounts(st, align, -3, binS, nBins), align.length, centres, binS, 6, 30, undefined, false);
+      same(lite, liteDense, `rep ${rep} (tests off)`);
+      for (const k of ['nTrials', 'meanRateHz', 'slopeHzPerS', 'slopeRelPerS', 'r2', 'lateEarlyRatio', 'trialSlopes', 'meanRate', 'semRate', 'interceptHz'] as const) {
+        same(lite[k], direct[k], `rep ${rep} ${k}`);
+      }
+      for (const k of ['p', 'statistic', 'glmSlopePerS', 'glmLrtP', 'glmDispersion'] as const) expect(lite[k]).toBeNaN();
+      expect(lite.direction).toBe(0);
+      expect(lite.nNonZero).toBe(0);
     }
   });
 });
