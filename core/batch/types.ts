@@ -15,6 +15,8 @@ export interface BatchJob {
   readonly outDir: string;
   /** --config file to pass to `run`, if any (absolute). */
   readonly config: string | null;
+  /** Analysis threads for the session's `run` (--threads): the CPUs shared among the batch's workers, at least 1. */
+  readonly threads: number;
   /** Hash of everything besides the inputs that decides the result (tool version, config text). */
   readonly parametersKey: string;
   /** Ignore earlier results and run again. */

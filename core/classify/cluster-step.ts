@@ -9,6 +9,7 @@ import { clusterUnits } from './cluster-units';
  */
 export const clusterStep: AnalysisStep = {
   name: 'cluster',
+  selfContained: true,
   run({ recording, parameters }) {
     const c = clusterUnits(recording, parameters);
     return {

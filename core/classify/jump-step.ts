@@ -12,6 +12,7 @@ import { columnSafe } from './column-safe';
  */
 export const jumpStep: AnalysisStep = {
   name: 'jump',
+  selfContained: true,
   run({ recording, parameters }) {
     const jp = parameters.jump;
     const r = classifyJumps(recording, jp);

@@ -16,6 +16,7 @@ import { columnSafe } from './column-safe';
  */
 export const rampStep: AnalysisStep = {
   name: 'ramp',
+  selfContained: true,
   run({ recording, parameters }) {
     const rp = parameters.ramp;
     const r = classifyRamps(recording, rp);

@@ -36,6 +36,12 @@
  * with a counting sort (O(n)) into one Float64Array, the only full-length
  * array made here; each unit's spikeTimes is a view of it, sorted. Events are sorted by time,
  * trials by start, pulses by onset (ties keep file order).
+ *
+ * options.sharedMemory (default false): allocate that one spike array on a
+ * SharedArrayBuffer, so the Recording's spike times can be posted to a worker
+ * thread without a copy (every unit's spikeTimes.buffer is then the same
+ * SharedArrayBuffer). Off by default: browsers offer SharedArrayBuffer only
+ * to cross-origin-isolated pages. The values are the same either way.
  */
 import { InputError } from '../errors';
 import type { Events, Pulses, RawSource, Recording, Scalar, Trials, Unit, Warning } from '../model/types';
@@ -157,7 +163,12 @@ export const SCALE_RATIO = 300;
  */
 export const PLAUSIBLE_MEDIAN_RATE_HZ = 0.1;
 
-export function buildRecording(t: RecordingTables): { recording: Recording; warnings: Warning[] } {
+export interface BuildRecordingOptions {
+  /** Allocate the one full-length spike array on a SharedArrayBuffer (default false). */
+  readonly sharedMemory?: boolean;
+}
+
+export function buildRecording(t: RecordingTables, options: BuildRecordingOptions = {}): { recording: Recording; warnings: Warning[] } {
   const warnings: Warning[] = [];
   const tol = t.toleranceS;
   const spanStartGiven = t.span?.startS ?? null;
@@ -189,7 +200,7 @@ export function buildRecording(t: RecordingTables): { recording: Recording; warn
   // holds every spike; each unit's spikeTimes is a view of its code's range.
   const codeStart = new Float64Array(nCodes + 1);
   for (let c = 0; c < nCodes; c++) codeStart[c + 1] = codeStart[c] + codeCount[c];
-  const all = new Float64Array(n);
+  const all = options.sharedMemory ? new Float64Array(new SharedArrayBuffer(n * 8)) : new Float64Array(n);
   const at = n < 2 ** 31 ? Int32Array.from(codeStart.subarray(0, nCodes)) : codeStart.slice(0, nCodes);
   const lastT = new Float64Array(nCodes).fill(-Infinity);
   let unsorted = 0;

@@ -36,6 +36,12 @@ export interface ImportOptions {
   readonly parameterSources?: readonly { file: string; overrides: unknown }[];
   /** Hash factory (default: the pure SHA-256 of core; Node passes node:crypto's). */
   readonly createHash?: () => Sha256;
+  /**
+   * Put the recording's spike times on one SharedArrayBuffer (see
+   * buildRecording), so it can be posted to a worker thread without a copy.
+   * Default false (browsers need cross-origin isolation for it).
+   */
+  readonly sharedMemory?: boolean;
 }
 
 export const MANIFEST_FILE = 'session.json';
@@ -402,7 +408,7 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     ...(span ? { span } : {}),
     toleranceS: parameters.span.toleranceS,
     ...(raw ? { raw } : {}),
-  });
+  }, { sharedMemory: options.sharedMemory ?? false });
   finishSpikes();
   return {
     recording: built.recording,

@@ -27,7 +27,7 @@ export async function loadNwbSession(path: string, section?: unknown, options: I
   const h5 = await openHdf5File(path);
   let session;
   try {
-    session = readNwbImport(h5, file, section, options.parameterSources ?? []);
+    session = readNwbImport(h5, file, section, options.parameterSources ?? [], { sharedMemory: options.sharedMemory ?? false });
   } finally {
     h5.close();
   }

@@ -12,6 +12,10 @@
  * Hashing: unless options.createHash is given, every input is hashed with
  * node:crypto (nodeSha256) from the bytes the importer reads, as it reads them.
  *
+ * options.sharedMemory (default false): the recording's spike times sit on
+ * one SharedArrayBuffer (folders and NWB files alike; see buildRecording), so
+ * it can be posted to a worker thread without a copy.
+ *
  * Errors: InputError for a missing path, a file that is neither a folder nor
  * .nwb, and everything the importers report.
  */

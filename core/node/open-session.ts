@@ -8,9 +8,10 @@ import { EMPTY_CURATION } from '../curation/types';
 import type { Parameters } from '../defaults';
 import { InputError } from '../errors';
 import type { ImportResult } from '../io/import-result';
-import { analyseRecording, type AnalysisResult } from '../pipeline/analyse-recording';
+import type { AnalysisResult } from '../pipeline/analyse-recording';
 import { resolveParameters } from '../resolve-parameters';
 import type { UnitTable } from '../table/types';
+import { analyseRecordingThreads } from './analyse-recording-threads';
 import { loadSessionFile } from './session-store';
 
 /** Reads a session folder or NWB file into an ImportResult (the import area's loader). */
@@ -54,7 +55,7 @@ export async function openSession(path: string, importSource: ImportSource, opts
   if (!isSessionFilePath(path)) {
     const imported = await importSource(path);
     const parameters = resolveParameters(imported.parameterSources);
-    const analysis = analyseRecording(imported.recording, parameters);
+    const analysis = await analyseRecordingThreads(imported.recording, parameters);
     const { table } = applyCuration(analysis.table, EMPTY_CURATION);
     return { sessionFile: null, source: path, imported, parameters, analysis, table, curation: EMPTY_CURATION, notices: [], mismatch: null, orphans: [] };
   }
@@ -71,7 +72,7 @@ export async function openSession(path: string, importSource: ImportSource, opts
     }
     notices.push(msg);
   }
-  const analysis = analyseRecording(imported.recording, s.parameters);
+  const analysis = await analyseRecordingThreads(imported.recording, s.parameters);
   const { table, orphans } = applyCuration(analysis.table, s.curation);
   if (orphans.length) notices.push(`${basename(path)}: curation of ${orphans.length} unit(s) not in the recording was not applied: ${orphans.slice(0, 10).join(', ')}${orphans.length > 10 ? ', ...' : ''}.`);
   return { sessionFile: path, source, imported, parameters: s.parameters, analysis, table, curation: s.curation, notices, mismatch: mismatch.same ? null : mismatch, orphans };

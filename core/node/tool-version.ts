@@ -1,5 +1,10 @@
-/** The tool's version, from package.json (read once). */
-import { readFileSync } from 'node:fs';
+/**
+ * The tool's version, from tagbench's package.json (read once): the nearest
+ * package.json named "tagbench" above this module, so it is found from the
+ * sources, from a bundled worker module under node_modules/.cache
+ * (start-worker-thread.ts) and from a packaged build alike.
+ */
+import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -7,8 +12,20 @@ let cached: string | undefined;
 
 export function toolVersion(): string {
   if (cached === undefined) {
-    const pkg = JSON.parse(readFileSync(join(dirname(fileURLToPath(import.meta.url)), '../../package.json'), 'utf8')) as { version: string };
-    cached = pkg.version;
+    let dir = dirname(fileURLToPath(import.meta.url));
+    for (;;) {
+      const f = join(dir, 'package.json');
+      if (existsSync(f)) {
+        const pkg = JSON.parse(readFileSync(f, 'utf8')) as { name?: string; version?: string };
+        if (pkg.name === 'tagbench' && typeof pkg.version === 'string') {
+          cached = pkg.version;
+          break;
+        }
+      }
+      const up = dirname(dir);
+      if (up === dir) throw new Error(`no package.json of tagbench above ${fileURLToPath(import.meta.url)}`);
+      dir = up;
+    }
   }
   return cached;
 }

@@ -1,9 +1,9 @@
 import type { Parameters } from '../defaults';
 import type { Recording, Warning } from '../model/types';
 import type { Column, UnitTable } from '../table/types';
-import { assembleTable } from '../table/assemble-table';
+import { combineStepResults } from './combine-step-results';
 import { STEPS } from './steps';
-import type { AnalysisStep } from './types';
+import type { AnalysisStep, StepResult } from './types';
 
 export interface AnalysisResult {
   readonly table: UnitTable;
@@ -13,8 +13,11 @@ export interface AnalysisResult {
 }
 
 /**
- * Runs every analysis step on a recording and assembles units.csv's table.
- * Deterministic: the same recording and parameters give the same result.
+ * Runs every analysis step on a recording, one after the other, and
+ * assembles units.csv's table. Deterministic: the same recording and
+ * parameters give the same result. (The CLI runs the self-contained steps in
+ * a second thread on large sessions: core/node/analyse-recording-threads.ts;
+ * same result.)
  */
 export function analyseRecording(
   recording: Recording,
@@ -22,13 +25,11 @@ export function analyseRecording(
   steps: readonly AnalysisStep[] = STEPS,
 ): AnalysisResult {
   const columns = new Map<string, Column>();
-  const summaries: Record<string, unknown> = {};
-  const warnings: Warning[] = [];
+  const results: { name: string; result: StepResult }[] = [];
   for (const step of steps) {
-    const res = step.run({ recording, parameters, columns });
-    for (const c of res.columns) columns.set(c.name, c);
-    if (res.summary) summaries[step.name] = res.summary;
-    if (res.warnings) warnings.push(...res.warnings);
+    const result = step.run({ recording, parameters, columns });
+    for (const c of result.columns) columns.set(c.name, c);
+    results.push({ name: step.name, result });
   }
-  return { table: assembleTable([...columns.values()], recording.units.length), summaries, warnings };
+  return combineStepResults(results, recording.units.length);
 }

@@ -7,6 +7,7 @@ import type { AnalysisStep } from './types';
  */
 export const basicStep: AnalysisStep = {
   name: 'basic',
+  selfContained: true,
   run({ recording }) {
     const n = recording.units.length;
     const nSpikes = new Float64Array(n);

@@ -24,5 +24,14 @@ export interface StepResult {
 export interface AnalysisStep {
   /** Short id, also the key of its summary in run.json. */
   readonly name: string;
+  /**
+   * True when the step reads only the recording's spikes, pulses, events,
+   * trials, behaviour samples and span, and the parameters: never
+   * `recording.raw` (a file reader that cannot cross threads) and never an
+   * earlier step's columns. Such steps may run in another thread, on a copy of
+   * the recording without `raw` (core/node/analyse-recording-threads.ts); the
+   * result must not depend on where the step runs.
+   */
+  readonly selfContained?: boolean;
   run(ctx: StepContext): StepResult;
 }

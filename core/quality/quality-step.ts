@@ -12,6 +12,7 @@ import { unitQuality } from './unit-quality';
  */
 export const qualityStep: AnalysisStep = {
   name: 'quality',
+  selfContained: true,
   run({ recording, parameters }) {
     const q = parameters.quality;
     const n = recording.units.length;

@@ -9,7 +9,8 @@
  * `section` is the session.json "nwb" section as given (undefined for a bare
  * .nwb file); it is validated here (parseNwbManifest). Parameters come from
  * `parameterSources` as for folders; only the span (and its tolerance) is
- * used while reading. Errors are InputError paragraphs naming the file.
+ * used while reading. options.sharedMemory: see buildRecording (default false).
+ * Errors are InputError paragraphs naming the file.
  */
 import { DEFAULTS, type Parameters } from '../../defaults';
 import { resolveParameters } from '../../resolve-parameters';
@@ -23,12 +24,13 @@ export function readNwbImport(
   file: string,
   section: unknown,
   parameterSources: readonly { file: string; overrides: unknown }[],
+  options: { readonly sharedMemory?: boolean } = {},
 ): Omit<ImportResult, 'inputs'> {
   const manifestFile = 'session.json';
   const manifest = parseNwbManifest(section, manifestFile);
   const parameters = resolveParameters(parameterSources);
   const span = spanFrom(parameters, parameterSources);
-  const session = readNwbSession(h5, file, { manifest, manifestFile, ...(span ? { span } : {}), toleranceS: parameters.span.toleranceS });
+  const session = readNwbSession(h5, file, { manifest, manifestFile, ...(span ? { span } : {}), toleranceS: parameters.span.toleranceS, sharedMemory: options.sharedMemory ?? false });
   return {
     recording: session.recording,
     warnings: session.warnings,

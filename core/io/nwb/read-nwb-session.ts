@@ -46,6 +46,8 @@ export interface NwbSessionOptions {
   readonly span?: { readonly startS: number | null; readonly stopS: number | null; readonly file: string };
   /** Allowed overshoot of the span, s (DEFAULTS.span.toleranceS). */
   readonly toleranceS: number;
+  /** Spike times on one SharedArrayBuffer (see buildRecording; default false). */
+  readonly sharedMemory?: boolean;
 }
 
 export interface NwbSession {
@@ -122,7 +124,7 @@ export function readNwbSession(h5: Hdf5File, file: string, options: NwbSessionOp
     tables.span = { startS: lo, stopS: hi, source: 'observation-intervals', file: `${file} (${plan.units}/obs_intervals)` };
   }
 
-  const built = buildRecording(tables);
+  const built = buildRecording(tables, { sharedMemory: options.sharedMemory ?? false });
   warnings.push(...built.warnings);
   const observed = new Map(u.units.map((x) => [x.id, x.observedIntervals]));
   const recording: Recording = {

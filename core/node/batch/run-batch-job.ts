@@ -42,7 +42,7 @@ export async function runBatchJob(job: BatchJob, onStage: (stage: string) => voi
     }
     onStage('running');
     const err: string[] = [];
-    const args = [job.session, '--out', job.outDir, ...(job.config ? ['--config', job.config] : [])];
+    const args = [job.session, '--out', job.outDir, '--threads', String(job.threads), ...(job.config ? ['--config', job.config] : [])];
     const code = await runCommand.run(args, { stdout: () => {}, stderr: (s) => err.push(s), isTty: false });
     if (code !== 0) return done('failed', err.join('').trim() || `run exited with code ${code}`, listingKey, bytes, code === 2 ? 'input' : 'internal');
     return done('ok', 'analysed', listingKey, bytes);

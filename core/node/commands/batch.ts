@@ -17,6 +17,7 @@
 import { existsSync, mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
+import type { Worker } from 'node:worker_threads';
 import { createHash } from 'node:crypto';
 import { batchSummaryHtml } from '../../batch/batch-summary-html';
 import { combineUnitTables, type SessionCounts } from '../../batch/combine-unit-tables';
@@ -26,7 +27,7 @@ import type { BatchJob, BatchJobResult, WorkerMessage, WorkerProgress } from '..
 import { InputError } from '../../errors';
 import { atomicWriteFile } from '../atomic-write-file';
 import { runBatchJob } from '../batch/run-batch-job';
-import { startBatchWorker } from '../batch/start-batch-worker';
+import { startWorkerThread } from '../start-worker-thread';
 import { parseCliArgs } from '../parse-cli-args';
 import { toolVersion } from '../tool-version';
 import type { Command } from './types';
@@ -103,6 +104,9 @@ export const batchCommand: Command = {
     const parametersKey = createHash('sha256').update(`${version}\n${configText}`).digest('hex');
     const previous = readState(outDir);
     const names = sessionNames(sessions);
+    const nWorkers = combineOnly ? 0 : Math.min(workers, sessions.length);
+    // Each session's run may use a second thread (core/node/analyse-recording-threads.ts): share the CPUs.
+    const threads = Math.max(1, Math.floor(availableParallelism() / Math.max(1, nWorkers)));
     const jobs: BatchJob[] = sessions.map((session, index) => {
       const name = names[index];
       const prev = previous?.sessions[name];
@@ -111,6 +115,7 @@ export const batchCommand: Command = {
         session,
         name,
         outDir: join(outDir, 'sessions', name),
+        threads,
         config,
         parametersKey,
         force,
@@ -118,7 +123,6 @@ export const batchCommand: Command = {
       };
     });
 
-    const nWorkers = combineOnly ? 0 : Math.min(workers, jobs.length);
     const started = performance.now();
     const results: BatchJobResult[] = [];
     const emit = (o: Record<string, unknown>) => io.stdout(`${JSON.stringify(o)}\n`);
@@ -267,7 +271,21 @@ function runPool(
     let finished = 0;
     const current: (BatchJob | null)[] = new Array(n).fill(null);
     const launch = (slot: number) => {
-      const w = startBatchWorker();
+      startWorkerThread(import.meta.url, '../batch/batch-worker').then(
+        (w) => attach(slot, w),
+        (e: Error) => {
+          // No thread could start: this slot's next session fails; the rest go to other slots or fail the same way.
+          if (next < jobs.length) {
+            const job = jobs[next++];
+            onResult(slot, { index: job.index, name: job.name, session: job.session, status: 'failed', failure: 'internal', message: `worker thread could not start: ${e.message}`, seconds: 0, bytes: 0, listingKey: '', parametersKey: job.parametersKey });
+            finished++;
+            if (finished === jobs.length) resolveAll();
+            launch(slot);
+          }
+        },
+      );
+    };
+    const attach = (slot: number, w: Worker) => {
       const feed = () => {
         if (next >= jobs.length) {
           current[slot] = null;

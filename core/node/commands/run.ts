@@ -2,9 +2,9 @@ import { readFileSync, existsSync, statSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import { InputError } from '../../errors';
 import { buildRunRecord } from '../../export/build-run-record';
-import { analyseRecording } from '../../pipeline/analyse-recording';
 import { resolveParameters } from '../../resolve-parameters';
 import { formatDelimited } from '../../table/format-delimited';
+import { analyseRecordingThreads } from '../analyse-recording-threads';
 import { loadSession } from '../load-session';
 import { parseCliArgs } from '../parse-cli-args';
 import { toolVersion } from '../tool-version';
@@ -20,18 +20,21 @@ export const runCommand: Command = {
   name: 'run',
   summary: 'Analyse a session and write units.csv and run.json',
   usage: [
-    'Usage: tagbench run <session-dir|file.nwb> --out <out-dir> [--config analysis.json]',
+    'Usage: tagbench run <session-dir|file.nwb> --out <out-dir> [--config analysis.json] [--threads <n>]',
     '',
     '  --out <dir>       output folder (created; an earlier tagbench output there is replaced)',
     '  --config <file>   analysis parameters as JSON sections, e.g. {"light": {"windowEndMs": 8}};',
     '                    applied after the session\'s own "parameters"',
+    '  --threads <n>     threads for the analysis (default: the CPUs available to this process;',
+    '                    1 = one thread). Large sessions run the ramp, jump, cluster and quality',
+    '                    steps beside the light step; the results are the same either way',
     '',
     'Writes <out-dir>/units.csv (one row per unit) and <out-dir>/run.json (tool version,',
     'parameters, SHA-256 and size of every input file, warnings, step summaries, time).',
     'Exit codes: 0 success; 2 bad input (one paragraph on stderr); 1 internal error.',
   ].join('\n'),
   async run(argv, io) {
-    const a = parseCliArgs(argv, 'run', ['--out', '--config']);
+    const a = parseCliArgs(argv, 'run', ['--out', '--config', '--threads']);
     if (a.flags.has('--help') || a.flags.has('-h')) {
       io.stdout(`${this.usage}\n`);
       return 0;
@@ -42,6 +45,11 @@ export const runCommand: Command = {
     const out = a.options['--out'];
     if (!out) throw new InputError({ file: 'tagbench run', problem: 'the --out folder is missing', fix: 'add --out <out-dir>' });
     const session = a.positionals[0];
+    let threads: number | undefined;
+    if (a.options['--threads'] !== undefined) {
+      threads = Number(a.options['--threads']);
+      if (!Number.isInteger(threads) || threads < 1) throw new InputError({ file: 'tagbench run', column: '--threads', value: a.options['--threads'], problem: 'is not a whole number >= 1' });
+    }
     const started = new Date();
     const extra: { file: string; overrides: unknown }[] = [];
     if (a.options['--config']) {
@@ -55,9 +63,9 @@ export const runCommand: Command = {
         throw new InputError({ file: basename(cfg), problem: `not valid JSON (${(e as Error).message})` });
       }
     }
-    const imported = await loadSession(session, { parameterSources: extra });
+    const imported = await loadSession(session, { parameterSources: extra, sharedMemory: true });
     const parameters = resolveParameters(imported.parameterSources);
-    const analysis = analyseRecording(imported.recording, parameters);
+    const analysis = await analyseRecordingThreads(imported.recording, parameters, { threads });
     const rec = imported.recording;
     const warnings = [...imported.warnings, ...analysis.warnings];
     const runJson = buildRunRecord({

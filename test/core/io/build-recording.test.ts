@@ -169,3 +169,46 @@ describe('buildRecording', () => {
     expect(message(() => buildRecording(base(spikes(ids, times.map((t) => t * 1000)), { pulses })))).toMatch(/times run to 3599920 s, but pulses\.csv by 9\.99 s; this looks like .* labelled as seconds/);
   });
 });
+
+describe('buildRecording: sharedMemory option', () => {
+  // unsorted rows, a duplicate time, a unit listed without spikes (unit-info row "0"), and a one-spike unit
+  const s = spikes(['2', '1', '2', '1', '3', '2'], [5, 1, 3, 1, 0, 4]);
+  const tables = base(s, { unitInfo: { file: 'unit_info.csv', rowOf, columns: { unit: 'unit' }, ids: ['0', '1', '2', '3'], meta: {} } });
+
+  it('puts every unit on one SharedArrayBuffer; values and warnings equal the default path', () => {
+    const plain = buildRecording(tables);
+    const shared = buildRecording(tables, { sharedMemory: true });
+    const buffers = new Set(shared.recording.units.map((u) => u.spikeTimes.buffer));
+    expect(buffers.size).toBe(1);
+    const [buf] = buffers;
+    expect(buf).toBeInstanceOf(SharedArrayBuffer);
+    expect(buf.byteLength).toBe(6 * 8); // exactly the spikes, no more
+    expect(shared.recording.units.map((u) => [u.id, Array.from(u.spikeTimes)])).toEqual([
+      ['0', []],
+      ['1', [1, 1]],
+      ['2', [3, 4, 5]],
+      ['3', [0]],
+    ]);
+    expect(shared.recording.units.map((u) => Array.from(u.spikeTimes))).toEqual(plain.recording.units.map((u) => Array.from(u.spikeTimes)));
+    expect(shared.warnings).toEqual(plain.warnings);
+    expect(shared.recording.span).toEqual(plain.recording.span);
+  });
+
+  it('is off by default and when false: plain ArrayBuffer', () => {
+    for (const r of [buildRecording(tables), buildRecording(tables, { sharedMemory: false })]) {
+      for (const u of r.recording.units) expect(u.spikeTimes.buffer).toBeInstanceOf(ArrayBuffer);
+    }
+  });
+
+  it('survives structured cloning as shared memory (what posting to a worker does): the clone sees later writes', () => {
+    const r = buildRecording(tables, { sharedMemory: true });
+    const st = r.recording.units[2].spikeTimes;
+    const clone = structuredClone(st);
+    expect(clone.buffer).toBeInstanceOf(SharedArrayBuffer);
+    expect(Array.from(clone)).toEqual([3, 4, 5]);
+    const before = st[0];
+    st[0] = 99; // shared, not copied: the clone sees it
+    expect(clone[0]).toBe(99);
+    st[0] = before;
+  });
+});

@@ -76,6 +76,29 @@ describe('importSession: formats and manifest', () => {
     ]);
   });
 
+  it('sharedMemory: CSV and NPY spike times on one SharedArrayBuffer, equal to the default path', async () => {
+    const forms: Record<string, string | Uint8Array>[] = [
+      { 'spikes.csv': 'unit,time\n2,0.3\n1,0.5\n2,0.1\n3,7\n' },
+      { 'spikes.npy': npyBytes(Float64Array.from([0.3, 0.5, 0.1, 7])), 'units.npy': npyBytes(Int32Array.from([2, 1, 2, 3])) },
+    ];
+    for (const files of forms) {
+      const plain = await importSession(memorySource(files));
+      const shared = await importSession(memorySource(files), { sharedMemory: true });
+      const buffers = new Set(shared.recording.units.map((u) => u.spikeTimes.buffer));
+      expect(buffers.size).toBe(1);
+      expect([...buffers][0]).toBeInstanceOf(SharedArrayBuffer);
+      expect(shared.recording.units.map((u) => [u.id, Array.from(u.spikeTimes)])).toEqual([
+        ['1', [0.5]],
+        ['2', [0.1, 0.3]],
+        ['3', [7]],
+      ]);
+      expect(shared.recording.units.map((u) => Array.from(u.spikeTimes))).toEqual(plain.recording.units.map((u) => Array.from(u.spikeTimes)));
+      expect(shared.warnings).toEqual(plain.warnings);
+      expect(shared.inputs).toEqual(plain.inputs);
+      for (const u of plain.recording.units) expect(u.spikeTimes.buffer).toBeInstanceOf(ArrayBuffer);
+    }
+  });
+
   it('integer spikes.npy means sample counts and needs sample_rate', async () => {
     const files = { 'spikes.npy': npyBytes(Int32Array.from([300, 600])), 'units.npy': npyBytes(Int32Array.from([1, 1])) };
     expect(await errorOf(importSession(memorySource(files)))).toMatch(/session\.json, column "spikes\.time_unit": spikes\.npy has times in samples but no "sample_rate" is given/);

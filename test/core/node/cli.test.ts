@@ -69,6 +69,7 @@ const BAD: [string, Record<string, string>, string[], RegExp][] = [
   ['behaviour: repeated sample time', { ...GOOD, 'behaviour.csv': 'time,progress\n0,0\n1,0.5\n1,0.6\n' }, [], /^behaviour\.csv, row 4, column "time": two samples share this time \(also row 3\)/],
   ['no session', {}, [], /^.*nowhere: no such file or folder/],
   ['unknown option', GOOD, ['--outt', 'x'], /^tagbench run: unknown option \(value "--outt"\)/],
+  ['threads not a whole number', GOOD, ['--threads', '0'], /^tagbench run, column "--threads": is not a whole number >= 1 \(value "0"\)/],
 ];
 
 let results: Result[] = [];

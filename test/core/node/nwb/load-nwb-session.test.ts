@@ -112,6 +112,17 @@ describe('loadNwbSession on h5py-written fixtures', () => {
     expect(r.warnings.map((w) => w.code)).toEqual(['units-without-spikes']);
   });
 
+  it('sharedMemory: the NWB path puts every unit on one SharedArrayBuffer with the same values', async () => {
+    const plain = await loadSession(path('pulse_table.nwb'));
+    const shared = await loadSession(path('pulse_table.nwb'), { sharedMemory: true });
+    const buffers = new Set(shared.recording.units.map((u) => u.spikeTimes.buffer));
+    expect(buffers.size).toBe(1);
+    expect([...buffers][0]).toBeInstanceOf(SharedArrayBuffer);
+    expect(shared.recording.units.map((u) => Array.from(u.spikeTimes))).toEqual(plain.recording.units.map((u) => Array.from(u.spikeTimes)));
+    expect(shared.recording.units.map((u) => Array.from(u.spikeTimes))).toEqual(expected.files['pulse_table.nwb'].units.spike_times);
+    for (const u of plain.recording.units) expect(u.spikeTimes.buffer).toBeInstanceOf(ArrayBuffer);
+  });
+
   it('records the file size and SHA-256 (checked against node:crypto on the bytes) and leaves the file unchanged', async () => {
     const before = createHash('sha256').update(readFileSync(path('pulse_table.nwb'))).digest('hex');
     const r = await loadNwbSession(path('pulse_table.nwb'));
