@@ -13,7 +13,7 @@ import { midRanks } from '../../../core/stats/mid-ranks';
 import { wilcoxonSignedRank } from '../../../core/stats/wilcoxon-signed-rank';
 
 // The implementation before the change, verbatim.
-function referenceSignedRank(d: ArrayLike<number>, exactMaxN = 50): SignedRankResult {
+function referenceSignedRank(d: ArrayLike<number>, exactMaxN = 50): ReturnType<typeof wilcoxonSignedRank> {
   let zeros = 0;
   const nz: number[] = [];
   for (let i = 0; i < d.length; i++) {
@@ -105,7 +105,7 @@ describe('wilcoxonSignedRank equals its midRanks-based form', () => {
       const exactMaxN = rep % 3 === 0 ? 50 : 30;
       const a = wilcoxonSignedRank(d, exactMaxN);
       const b = referenceSignedRank(d, exactMaxN);
-      for (const k of Object.keys(b) as (keyof typeof b)[]) expect(Object.is(a[k], b[k]), `rep ${rep} ${k}: ${a[k]} vs ${b[k]}`).toBe(true);
+      for (const k of Object.keys(b) as (keyof typeof b)[]) expect(Object.is(a[k], b[k]), `rep ${rep} ${String(k)}: ${a[k]} vs ${b[k]}`).toBe(true);
     }
   });
 });
