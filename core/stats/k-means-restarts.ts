@@ -31,10 +31,11 @@ export interface KMeansFit {
 export function kMeansRestarts(points: ArrayLike<number>, dim: number, k: number, restarts = 10, seed = 1): KMeansFit {
   const n = Math.floor(points.length / dim);
   if (!(k >= 1 && k <= n)) throw new Error(`k-means needs 1 <= k <= n, got k = ${k}, n = ${n}`);
+  const flat = points instanceof Float64Array ? points : Float64Array.from(points);
   let best: { labels: Int32Array; ss: number; seed: number } | null = null;
   for (let r = 0; r < restarts; r++) {
     const s = seed + r;
-    const labels = lloydKMeans(points, dim, k, s, 300, 1e-12);
+    const labels = lloydKMeans(flat, dim, k, s, 300, 1e-12);
     const { ss, sizes } = withinSs(points, dim, labels, k);
     if (sizes.some((c) => c === 0)) continue;
     if (!best || ss < best.ss - 1e-12 * Math.abs(best.ss)) best = { labels, ss, seed: s };

@@ -20,7 +20,7 @@
  *
  * Input: points row-major (n x dim), k, integer seed.
  */
-export function lloydKMeans(points: ArrayLike<number>, dim: number, k: number, seed: number, maxIterations = 100, tolerance = 1e-6): Int32Array {
+export function lloydKMeans(points: Float64Array, dim: number, k: number, seed: number, maxIterations = 100, tolerance = 1e-6): Int32Array {
   const n = Math.floor(points.length / dim);
   if (k <= 0 || k > n || !Number.isInteger(k)) throw new Error('K should be a positive integer smaller than the number of points');
   const centres = kMeansPlusPlus(points, dim, n, k, seed);
@@ -38,7 +38,10 @@ export function lloydKMeans(points: ArrayLike<number>, dim: number, k: number, s
       for (let c = 0; c < k; c++) {
         const q = c * dim;
         let d = 0;
-        for (let t = 0; t < dim; t++) d += (points[o + t] - centres[q + t]) * (points[o + t] - centres[q + t]);
+        for (let t = 0; t < dim; t++) {
+          const x = points[o + t] - centres[q + t];
+          d += x * x; // the same value as (p - c) * (p - c) computed twice
+        }
         if (d < bestD) {
           bestD = d;
           best = c;
@@ -64,7 +67,10 @@ export function lloydKMeans(points: ArrayLike<number>, dim: number, k: number, s
     converged = true;
     for (let c = 0; c < k && converged; c++) {
       let d = 0;
-      for (let t = 0; t < dim; t++) d += (next[c * dim + t] - centres[c * dim + t]) * (next[c * dim + t] - centres[c * dim + t]);
+      for (let t = 0; t < dim; t++) {
+        const x = next[c * dim + t] - centres[c * dim + t];
+        d += x * x;
+      }
       if (d > tolerance) converged = false;
     }
     centres.set(next);
@@ -73,13 +79,16 @@ export function lloydKMeans(points: ArrayLike<number>, dim: number, k: number, s
 }
 
 /** k-means++ with greedy local trials (see lloydKMeans); returns k centres row-major. */
-function kMeansPlusPlus(points: ArrayLike<number>, dim: number, n: number, k: number, seed: number): Float64Array {
+function kMeansPlusPlus(points: Float64Array, dim: number, n: number, k: number, seed: number): Float64Array {
   const random = xsadd(seed);
   const centres = new Float64Array(k * dim);
   const trials = 2 + Math.floor(Math.log(k));
   const sq = (i: number, a: ArrayLike<number>, ao: number) => {
     let d = 0;
-    for (let t = 0; t < dim; t++) d += (points[i * dim + t] - a[ao + t]) * (points[i * dim + t] - a[ao + t]);
+    for (let t = 0; t < dim; t++) {
+      const x = points[i * dim + t] - a[ao + t];
+      d += x * x;
+    }
     return d;
   };
   const first = Math.floor(random() * n);
@@ -114,7 +123,11 @@ function kMeansPlusPlus(points: ArrayLike<number>, dim: number, n: number, k: nu
       for (let i = 0; i < n; i++) {
         // squared distance candidate -> point (the same value either way round)
         let d = 0;
-        for (let t = 0; t < dim; t++) d += (points[o + t] - points[i * dim + t]) * (points[o + t] - points[i * dim + t]);
+        const oi = i * dim;
+        for (let t = 0; t < dim; t++) {
+          const x = points[o + t] - points[oi + t];
+          d += x * x;
+        }
         const v = Math.min(closest[i], d);
         trial[i] = v;
         pot += v;
