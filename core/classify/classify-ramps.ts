@@ -109,7 +109,7 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
           ? units[u]
           : unitRamp(recording.units[u].spikeTimes, cp, cBuffer, Infinity, params.exactMaxN, false);
         slope[u] = r.slopeHzPerS;
-        if (hasReference && !isReference && cp.nTrials >= 2 && plan.nTrials >= 2) diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;
+        if (hasReference && !isReference && cp.nTrials >= 2 && plan.nTrials >= 2) diffP[u] = mannWhitney(r.rankKeys, units[u].rankKeys).p; // numerators over one common denominator: the same test as on the slopes
       }
     }
     conditions.push({ condition: c, nTrials: cp.nTrials, slopeHzPerS: slope, diffP });

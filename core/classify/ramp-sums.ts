@@ -12,8 +12,9 @@ import type { RampUnitResult } from './ramp-unit';
  */
 export interface RampSums {
   readonly nTrials: number;
-  /** Per-trial slopes, Hz/s. */
+  /** Per-trial slopes, Hz/s, and the values the rank tests use (RampUnitResult.rankKeys). */
   readonly trialSlopes: Float64Array;
+  readonly rankKeys: Float64Array;
   /** Per bin: sum of counts, of exposure (s), of count^2 / exposure, of per-trial rates and of their squares. */
   readonly s1: number[];
   readonly se: number[];
@@ -31,7 +32,7 @@ export interface RampSums {
  * are NaN, direction 0): the per-condition comparison needs only the slopes.
  */
 export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: number, exactMaxN: number, tests = true): RampUnitResult {
-  const { nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE } = sums;
+  const { nTrials, trialSlopes, rankKeys, s1, se, sq, sr, sr2, total, totalE } = sums;
   const nBins = centresS.length;
   let mx = 0;
   for (let j = 0; j < nBins; j++) mx += centresS[j];
@@ -53,7 +54,8 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     early += meanRate[j];
     late += meanRate[nBins - 1 - j];
   }
-  const test = tests && nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
+  // On rankKeys: the same test as on the slopes (same order, ties and signs), sorted by counting.
+  const test = tests && nTrials >= minTrials ? wilcoxonSignedRank(rankKeys, exactMaxN) : null;
 
   let glmSlopePerS = NaN;
   let glmLrtP = NaN;
@@ -87,6 +89,7 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     r2: fit ? fit.r2 : NaN,
     lateEarlyRatio: early > 0 ? late / early : NaN,
     trialSlopes,
+    rankKeys,
     p: test ? test.p : NaN,
     direction: test ? test.direction : 0,
     statistic: test ? test.statistic : NaN,

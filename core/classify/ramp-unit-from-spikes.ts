@@ -40,6 +40,8 @@ export function rampUnitFromSpikes(
   const e = binS;
   const tab = countTables(e);
   const denom = 2 * binS * binS * sjj;
+  // The slopes' integer numerators, for the rank tests (see RampUnitResult.rankKeys).
+  const rankKeys = denom > 0 && denom < Infinity ? new Float64Array(nTrials) : trialSlopes;
   const n = spikeTimes.length;
   let hint = 0;
   for (let k = 0; k < nTrials; k++) {
@@ -84,8 +86,9 @@ export function rampUnitFromSpikes(
       hint = i;
     }
     trialSlopes[k] = w / denom;
+    if (rankKeys !== trialSlopes) rankKeys[k] = w;
   }
   const sums = equalExposureSums(binS, nTrials, nBins);
   const se: number[] = new Array<number>(nBins).fill(sums.perBin);
-  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE: sums.total }, centresS, minTrials, exactMaxN, tests);
+  return rampSummary({ nTrials, trialSlopes, rankKeys, s1, se, sq, sr, sr2, total, totalE: sums.total }, centresS, minTrials, exactMaxN, tests);
 }
