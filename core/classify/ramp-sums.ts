@@ -103,16 +103,20 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
   };
 }
 
-/** Sum of binS over nTrials (per bin) and over nTrials x nBins cells, added one by one as a dense pass would; the last result is kept (every unit of a session asks the same). */
-let lastSums = { binS: NaN, nTrials: -1, nBins: -1, perBin: 0, total: 0 };
+/** Sum of binS over nTrials (per bin) and over nTrials x nBins cells, added one by one as a dense pass would; kept per (binS, nTrials, nBins) (every unit of a session asks the same few). */
+const exposureSums = new Map<string, { perBin: number; total: number }>();
 export function equalExposureSums(binS: number, nTrials: number, nBins: number): { perBin: number; total: number } {
-  if (lastSums.binS === binS && lastSums.nTrials === nTrials && lastSums.nBins === nBins) return lastSums;
+  const key = `${binS}|${nTrials}|${nBins}`;
+  const hit = exposureSums.get(key);
+  if (hit) return hit;
   let perBin = 0;
   for (let k = 0; k < nTrials; k++) perBin += binS;
   let total = 0;
   for (let i = 0; i < nTrials * nBins; i++) total += binS;
-  lastSums = { binS, nTrials, nBins, perBin, total };
-  return lastSums;
+  if (exposureSums.size > 64) exposureSums.clear();
+  const sums = { perBin, total };
+  exposureSums.set(key, sums);
+  return sums;
 }
 
 /** Counts below this use the division tables of countTables. */
