@@ -7,12 +7,16 @@
  * bench/bench-session.ts; TAGBENCH_CACHE moves the cache). Prints:
  *   - one plain pass over all spike times (the floor any analysis pays);
  *   - import of the CSV form and of the NPY form (s, M rows/s);
- *   - every step of the run pipeline (core/pipeline/steps.ts), timed alone;
+ *   - every step of the run pipeline (core/pipeline/steps.ts), timed alone, then
+ *     all of them as `run` does them (analyseRecordingThreads: two threads
+ *     on a session this large when two CPUs are available);
  *   - PSTHs of every unit on every reward (10 ms bins, [-3, 1) s);
  *   - the full `run` on the NPY form in a fresh process (wall time, peak RSS: the
  *     child's own, read from /proc/self/status, since getrusage's maxRSS of a
  *     forked child includes this parent's memory; see bench/peak-rss.ts),
- *     against the targets: <= 3 s, CSV >= 5 M rows/s, peak < 3x the input.
+ *     against the targets: <= 3 s, CSV >= 5 M rows/s, peak < 3x the input;
+ *   - the same run as a user types it (node bin/tagbench.mjs run ...), wall
+ *     time from start to exit, module loading and writing included;
  * --profile also writes a V8 CPU profile of the full run (node --cpu-prof)
  * and prints its top functions by self time. Then, unless --core-only, it
  * runs the areas' own benchmarks in child processes and passes their output
@@ -27,6 +31,7 @@ import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { binCounts } from '../core/align/bin-counts';
+import { analyseRecordingThreads } from '../core/node/analyse-recording-threads';
 import { loadSession } from '../core/node/load-session';
 import { readNpy } from '../core/io/read-npy';
 import { STEPS } from '../core/pipeline/steps';
@@ -94,7 +99,7 @@ async function main(): Promise<void> {
     line('import CSV form', both(t), `${rate.toFixed(2)} M rows per CPU-s (target >= ${TARGET_CSV_ROWS_PER_S / 1e6}): ${rate >= TARGET_CSV_ROWS_PER_S / 1e6 ? 'ok' : 'MISSED'}; ${c.recording.units.length} units`);
   }
   m0 = mark();
-  const imported = await loadSession(s.npyDir);
+  const imported = await loadSession(s.npyDir, { sharedMemory: true });
   const npy = since(m0);
   line('import NPY form', both(npy), `${(s.spikes / npy.cpuMs / 1000).toFixed(2)} M rows per CPU-s`);
   const rec = imported.recording;
@@ -116,6 +121,10 @@ async function main(): Promise<void> {
     line(`step ${step.name}`, both(t), `${res.columns.length} columns; ${(t.cpuMs / plain.cpuMs).toFixed(0)}x a plain pass`);
   }
   line('all steps', both({ wallMs: stepsWall, cpuMs: stepsCpu }));
+  m0 = mark();
+  let plan = '';
+  await analyseRecordingThreads(rec, parameters, { onPlan: (p) => (plan = p.reason) });
+  line('all steps as run does them', both(since(m0)), plan);
 
   // PSTHs: every unit on every reward, [-3, 1) s in 10 ms bins.
   const rewards = Float64Array.from(rec.events.time.filter((_, i) => rec.events.label[i] === 'reward'));
@@ -137,6 +146,12 @@ async function main(): Promise<void> {
       line('full run, NPY form (fresh process)', both({ wallMs: m.runMs, cpuMs: m.cpuMs }), `target <= ${TARGET_RUN_S} s: ${m.runMs / 1000 <= TARGET_RUN_S ? 'ok' : m.cpuMs / 1000 <= TARGET_RUN_S ? 'ok in CPU time (machine busy)' : 'MISSED'}`);
       line('peak memory of the run (max RSS)', mib(m.maxRssBytes), `${(m.maxRssBytes / inputBytes).toFixed(2)}x the input (target < ${TARGET_MEMORY_FACTOR}x): ${m.maxRssBytes < TARGET_MEMORY_FACTOR * inputBytes ? 'ok' : 'MISSED'}`);
     }
+    // The same run as a user types it: the launcher, module loading and writing included.
+    const t0 = performance.now();
+    const cli = spawnSync(process.execPath, [join(ROOT, 'bin/tagbench.mjs'), 'run', s.npyDir, '--out', join(out, 'cli')], { cwd: ROOT, encoding: 'utf8' });
+    const cliMs = performance.now() - t0;
+    if (cli.status !== 0) console.log(`tagbench run FAILED (exit ${cli.status}):\n${cli.stderr}`);
+    else line('`tagbench run` on it, start to exit', `${(cliMs / 1000).toFixed(2)} s wall`, 'node bin/tagbench.mjs run ... (what npm run tagbench starts)');
     if (profDir) {
       const f = readdirSync(profDir).find((x) => x.endsWith('.cpuprofile'));
       if (f) {

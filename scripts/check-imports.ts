@@ -18,7 +18,8 @@ const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
 /** Packages allowed in pure core: no DOM, no Node built-ins inside. */
 export const CORE_PACKAGES = ['ml-kmeans', 'ml-pca', 'simple-statistics'];
-export const NODE_PACKAGES = [...CORE_PACKAGES, 'h5wasm', 'h5wasm/node'];
+/** vite: loaded on demand by core/node/module-bundle.ts only, to bundle the CLI and worker modules when running from the TypeScript sources. */
+export const NODE_PACKAGES = [...CORE_PACKAGES, 'h5wasm', 'h5wasm/node', 'vite'];
 export const ELECTRON_PACKAGES = [...NODE_PACKAGES, 'electron', 'vite'];
 export const RENDERER_PACKAGES = [...CORE_PACKAGES, 'react', 'react-dom', 'react-dom/client', 'react/jsx-runtime', 'plotly.js-dist-min', 'comlink', 'h5wasm'];
 /** The plotting library's source as text, embedded in the HTML report the app exports (loaded on demand). */

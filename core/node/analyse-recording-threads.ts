@@ -26,9 +26,9 @@ import { InputError, type InputProblem } from '../errors';
 import type { Recording } from '../model/types';
 import { analyseRecording, type AnalysisResult } from '../pipeline/analyse-recording';
 import { combineStepResults } from '../pipeline/combine-step-results';
+import { runSteps } from '../pipeline/run-steps';
 import { STEPS } from '../pipeline/steps';
 import type { AnalysisStep, StepResult } from '../pipeline/types';
-import type { Column } from '../table/types';
 import { startWorkerThread } from './start-worker-thread';
 
 /** What the main thread posts to run-steps-worker.ts. */
@@ -89,7 +89,7 @@ export async function analyseRecordingThreads(recording: Recording, parameters: 
   opts.onPlan?.(plan);
   const { moved } = plan;
   if (moved.length === 0) return analyseRecording(recording, parameters, steps);
-  const worker = await startWorkerThread(import.meta.url, './run-steps-worker');
+  const worker = await startWorkerThread('core/node/run-steps-worker');
   try {
     const reply = new Promise<StepsReply>((resolve, reject) => {
       worker.once('message', resolve);
@@ -100,14 +100,7 @@ export async function analyseRecordingThreads(recording: Recording, parameters: 
     const { raw: _fileReader, ...withoutRaw } = recording;
     const request: StepsRequest = { recording: withoutRaw, parameters, steps: moved.map((s) => s.name) };
     worker.postMessage(request);
-    const here = steps.slice(0, steps.length - moved.length);
-    const columns = new Map<string, Column>();
-    const results: { name: string; result: StepResult }[] = [];
-    for (const step of here) {
-      const result = step.run({ recording, parameters, columns });
-      for (const c of result.columns) columns.set(c.name, c);
-      results.push({ name: step.name, result });
-    }
+    const results = runSteps(recording, parameters, steps.slice(0, steps.length - moved.length));
     const r = await reply;
     if (!r.ok) {
       if (r.problem) throw new InputError(r.problem);

@@ -7,24 +7,21 @@
  */
 import { parentPort } from 'node:worker_threads';
 import { isInputError } from '../errors';
+import { runSteps } from '../pipeline/run-steps';
 import { STEPS } from '../pipeline/steps';
 import type { StepsReply, StepsRequest } from './analyse-recording-threads';
-import type { Column } from '../table/types';
 
 const port = parentPort;
 if (!port) throw new Error('run-steps-worker.ts must run in a worker thread');
 port.on('message', (req: StepsRequest) => {
   let reply: StepsReply;
   try {
-    const columns = new Map<string, Column>();
-    const results = req.steps.map((name) => {
+    const steps = req.steps.map((name) => {
       const step = STEPS.find((s) => s.name === name);
       if (!step) throw new Error(`no analysis step named "${name}"`);
-      const result = step.run({ recording: req.recording, parameters: req.parameters, columns });
-      for (const c of result.columns) columns.set(c.name, c);
-      return { name, result };
+      return step;
     });
-    reply = { ok: true, results };
+    reply = { ok: true, results: runSteps(req.recording, req.parameters, steps) };
   } catch (e) {
     const err = e as Error;
     reply = isInputError(e) ? { ok: false, problem: e.problem, message: e.message } : { ok: false, message: String(err?.message ?? e), stack: err?.stack };

@@ -1,9 +1,10 @@
 import type { Parameters } from '../defaults';
 import type { Recording, Warning } from '../model/types';
-import type { Column, UnitTable } from '../table/types';
+import type { UnitTable } from '../table/types';
 import { combineStepResults } from './combine-step-results';
+import { runSteps } from './run-steps';
 import { STEPS } from './steps';
-import type { AnalysisStep, StepResult } from './types';
+import type { AnalysisStep } from './types';
 
 export interface AnalysisResult {
   readonly table: UnitTable;
@@ -24,12 +25,5 @@ export function analyseRecording(
   parameters: Parameters,
   steps: readonly AnalysisStep[] = STEPS,
 ): AnalysisResult {
-  const columns = new Map<string, Column>();
-  const results: { name: string; result: StepResult }[] = [];
-  for (const step of steps) {
-    const result = step.run({ recording, parameters, columns });
-    for (const c of result.columns) columns.set(c.name, c);
-    results.push({ name: step.name, result });
-  }
-  return combineStepResults(results, recording.units.length);
+  return combineStepResults(runSteps(recording, parameters, steps), recording.units.length);
 }

@@ -271,7 +271,7 @@ function runPool(
     let finished = 0;
     const current: (BatchJob | null)[] = new Array(n).fill(null);
     const launch = (slot: number) => {
-      startWorkerThread(import.meta.url, '../batch/batch-worker').then(
+      startWorkerThread('core/node/batch/batch-worker').then(
         (w) => attach(slot, w),
         (e: Error) => {
           // No thread could start: this slot's next session fails; the rest go to other slots or fail the same way.

@@ -54,7 +54,7 @@ describe('analyseRecordingThreads', () => {
   }, 120_000);
 
   it('the worker answers an unknown step with an error, not silence', async () => {
-    const w = await startWorkerThread(new URL('../../../core/node/analyse-recording-threads.ts', import.meta.url).href, './run-steps-worker');
+    const w = await startWorkerThread('core/node/run-steps-worker');
     try {
       const reply = await new Promise<StepsReply>((resolve, reject) => {
         w.once('message', resolve);

@@ -1,5 +1,5 @@
 /**
- * The command line as users meet it: spawns `tsx core/node/cli.ts` (the
+ * The command line as users meet it: spawns `node bin/tagbench.mjs` (the
  * entry behind `npm run tagbench`) on small sessions written here by hand.
  * Every validation error must give exit code 2, one paragraph on stderr
  * naming file/row/column (no stack trace), and leave no output behind.
@@ -12,14 +12,13 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 const ROOT = resolve(__dirname, '../../..');
-const TSX = join(ROOT, 'node_modules/.bin/tsx');
-const CLI = join(ROOT, 'core/node/cli.ts');
+const CLI = join(ROOT, 'bin/tagbench.mjs');
 const work = mkdtempSync(join(tmpdir(), 'tagbench-cli-'));
 
 interface Result { code: number; stdout: string; stderr: string }
 function cli(args: string[]): Promise<Result> {
   return new Promise((res) => {
-    const p = spawn(TSX, [CLI, ...args], { cwd: work });
+    const p = spawn(process.execPath, [CLI, ...args], { cwd: work });
     let stdout = '';
     let stderr = '';
     p.stdout.on('data', (d) => (stdout += d));

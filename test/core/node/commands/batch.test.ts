@@ -71,7 +71,7 @@ describe('tagbench batch', () => {
   }, 120_000);
 
   it('runs sessions on worker threads, combines the good ones and fails with exit 2 naming the bad one', () => {
-    const r = spawnSync(process.execPath, ['--import', 'tsx', join(ROOT, 'core/node/cli.ts'), 'batch', '--list', join(dir, 'list.txt'), '--out', out, '--workers', '2'], {
+    const r = spawnSync(process.execPath, [join(ROOT, 'bin/tagbench.mjs'), 'batch', '--list', join(dir, 'list.txt'), '--out', out, '--workers', '2'], {
       cwd: ROOT,
       encoding: 'utf8',
     });
