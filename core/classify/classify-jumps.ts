@@ -114,6 +114,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
 
   for (let u = 0; u < nUnits; u++) {
     const st = recording.units[u].spikeTimes;
+    const rateHz = st.length > 1 ? (st.length - 1) / (st[st.length - 1] - st[0]) : 0;
     const profile: ReferenceProfile | null = refStarts.length > 0 ? referenceProfile(st, refStarts, refStops, profileLength, 0.001, scratch) : null;
     for (let g = 0; g < groups.length; g++) {
       const idx = groups[g];
@@ -129,7 +130,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
         const i = idx[e];
         const t = all.times[i];
         // Spikes in the three windows and the event-averaged PSTH counts, one walk (eventWindowCounts).
-        hint = eventWindowCounts(st, t, edges, inWindows, psthStartS, binS, nPsth, counts, hint);
+        hint = eventWindowCounts(st, t, edges, inWindows, psthStartS, binS, nPsth, counts, hint, rateHz);
         pre[e] = inWindows[0] / preLen;
         post[e] = inWindows[1] / postLen;
         late[e] = inWindows[2] / lateLen;

@@ -1,4 +1,4 @@
-import { lowerBoundNear } from '../align/lower-bound-near';
+import { lowerBoundFrom } from '../align/lower-bound-from';
 
 /**
  * Around one event at time t (s), in one walk over the spikes: the number of
@@ -16,8 +16,9 @@ import { lowerBoundNear } from '../align/lower-bound-near';
  *
  * hint: an index at or before the first spike of interest (e.g. this
  * function's return value for the previous event, events in time order);
- * any hint gives the same counts. Returns the index of the first spike at or
- * after the walk's start.
+ * any hint gives the same counts; rateHz, the train's mean rate, guesses how
+ * far ahead the walk starts (lowerBoundFrom; NaN: walk on from the hint).
+ * Returns the index of the first spike at or after the walk's start.
  */
 export function eventWindowCounts(
   spikeTimes: Float64Array,
@@ -29,6 +30,7 @@ export function eventWindowCounts(
   nBins: number,
   psth: Float64Array,
   hint: number,
+  rateHz = NaN,
 ): number {
   windowCounts[0] = 0;
   windowCounts[1] = 0;
@@ -49,7 +51,7 @@ export function eventWindowCounts(
   const from = Math.min(lo, a0, a1, a2);
   const to = Math.max(hi, b0, b1, b2);
   const n = spikeTimes.length;
-  const start = lowerBoundNear(spikeTimes, from, hint);
+  const start = lowerBoundFrom(spikeTimes, from, hint, rateHz);
   let c0 = 0;
   let c1 = 0;
   let c2 = 0;

@@ -1,4 +1,4 @@
-import { lowerBoundNear } from '../align/lower-bound-near';
+import { lowerBoundFrom } from '../align/lower-bound-from';
 import { countTables, equalExposureSums, rampSummary, TABLE_SIZE } from './ramp-sums';
 import type { RampUnitResult } from './ramp-unit';
 
@@ -10,7 +10,7 @@ import type { RampUnitResult } from './ramp-unit';
  * spikes in one bin is one non-zero count, added to the per-bin sums in the
  * order a dense pass over the matrix would add it (trial by trial, bin by
  * bin), so every floating-point sum is the same. The first spike of each
- * window is searched from where the previous window ended (lowerBoundNear).
+ * window is searched from where the previous window ended (lowerBoundFrom).
  *
  * Inputs: sorted spike times (s), alignment times (s; non-finite ones give an
  * empty trial, as binCounts), window start relative to them and bin width
@@ -43,6 +43,7 @@ export function rampUnitFromSpikes(
   // The slopes' integer numerators, for the rank tests (see RampUnitResult.rankKeys).
   const rankKeys = denom > 0 && denom < Infinity ? new Float64Array(nTrials) : trialSlopes;
   const n = spikeTimes.length;
+  const rateHz = n > 1 ? (n - 1) / (spikeTimes[n - 1] - spikeTimes[0]) : 0; // guesses where each window starts
   let hint = 0;
   for (let k = 0; k < nTrials; k++) {
     const a = alignTimes[k];
@@ -50,8 +51,8 @@ export function rampUnitFromSpikes(
     if (Number.isFinite(a)) {
       const lo = a + startS;
       const hi = lo + nBins * binS;
-      // From where the previous window ended (sequential reads; gallops over long gaps).
-      const i0 = lowerBoundNear(spikeTimes, lo, hint);
+      // From where the previous window ended (sequential reads over short gaps, a guess from the mean rate over long ones).
+      const i0 = lowerBoundFrom(spikeTimes, lo, hint, rateHz);
       let runBin = -1;
       let c = 0;
       let i = i0;

@@ -1,4 +1,4 @@
-import { lowerBoundNear } from '../align/lower-bound-near';
+import { lowerBoundFrom } from '../align/lower-bound-from';
 
 /**
  * Mean firing rate of one unit as a function of time-in-trial over a set of
@@ -63,6 +63,8 @@ export function referenceProfile(
     cover = new Float64Array(nGrid + 1);
     integral = new Float64Array(nGrid + 1);
   }
+  const nSpikes = spikeTimes.length;
+  const rateHz = nSpikes > 1 ? (nSpikes - 1) / (spikeTimes[nSpikes - 1] - spikeTimes[0]) : 0; // guesses where each trial starts
   let hint = 0;
   for (let r = 0; r < starts.length; r++) {
     const s = starts[r];
@@ -72,7 +74,7 @@ export function referenceProfile(
     cover[0] += 1;
     cover[covered] -= 1;
     const end = s + covered * resolutionS;
-    let i = lowerBoundNear(spikeTimes, s, hint);
+    let i = lowerBoundFrom(spikeTimes, s, hint, rateHz);
     for (; i < spikeTimes.length && spikeTimes[i] < end; i++) {
       const j = Math.floor((spikeTimes[i] - s) / resolutionS);
       if (j < covered) count[j]++;

@@ -54,7 +54,7 @@ describe('eventWindowCounts', () => {
       let hint = rep % 2 ? 0 : st.length; // a hint past every answer gallops back
       for (const t of events) {
         const want = reference(st, t, L.edges, L.psthStartS, L.binS, L.nBins, psthRef);
-        hint = eventWindowCounts(st, t, L.edges, got, L.psthStartS, L.binS, L.nBins, psth, hint);
+        hint = eventWindowCounts(st, t, L.edges, got, L.psthStartS, L.binS, L.nBins, psth, hint, rep % 3 === 0 ? NaN : rate * [1, 0.01, 50][rep % 3]);
         expect(Array.from(got), `rep ${rep} t ${t}`).toEqual(want);
       }
       expect(Array.from(psth), `rep ${rep} psth`).toEqual(Array.from(psthRef));
