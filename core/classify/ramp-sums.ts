@@ -16,11 +16,11 @@ export interface RampSums {
   readonly trialSlopes: Float64Array;
   readonly rankKeys: Float64Array;
   /** Per bin: sum of counts, of exposure (s), of count^2 / exposure, of per-trial rates and of their squares. */
-  readonly s1: number[];
-  readonly se: number[];
-  readonly sq: number[];
-  readonly sr: number[];
-  readonly sr2: number[];
+  readonly s1: ArrayLike<number>;
+  readonly se: ArrayLike<number>;
+  readonly sq: ArrayLike<number>;
+  readonly sr: ArrayLike<number>;
+  readonly sr2: ArrayLike<number>;
   /** Total count and total exposure (s). */
   readonly total: number;
   readonly totalE: number;
