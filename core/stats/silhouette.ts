@@ -35,18 +35,7 @@ export function silhouette(points: ArrayLike<number>, dim: number, labels: Array
     // earlier rows, then j > i from its own row), so the sums are the same.
     const sums = new Float64Array(n * k);
     let p = 0;
-    for (let i = 0; i < n; i++) {
-      const li = labels[i];
-      const oi = i * k;
-      for (let j = i + 1; j < n; j++) {
-        const d = distances[p++];
-        const lj = labels[j];
-        if (li >= 0 && lj >= 0) {
-          sums[oi + lj] += d;
-          sums[j * k + li] += d;
-        }
-      }
-    }
+    for (let i = 0; i < n; i++) p = addRow(distances, p, labels, i, n, k, sums);
     for (let i = 0; i < n; i++) {
       const li = labels[i];
       if (li < 0) continue;
@@ -90,4 +79,24 @@ function width(sums: Float64Array, o: number, li: number, size: Float64Array, k:
   for (let c = 0; c < k; c++) if (c !== li && size[c] > 0) b = Math.min(b, sums[o + c] / size[c]);
   const m = Math.max(a, b);
   return m > 0 ? (b - a) / m : 0;
+}
+
+/**
+ * Row i of the condensed distances (pairs (i, j), j > i, from position p):
+ * each distance added to both points' per-cluster sums. Returns the next
+ * row's position. A function per row, so V8 optimises it whole rather than
+ * compiling the caller's n^2 loop half-way.
+ */
+function addRow(distances: Float64Array, p: number, labels: ArrayLike<number>, i: number, n: number, k: number, sums: Float64Array): number {
+  const li = labels[i];
+  const oi = i * k;
+  for (let j = i + 1; j < n; j++) {
+    const d = distances[p++];
+    const lj = labels[j];
+    if (li >= 0 && lj >= 0) {
+      sums[oi + lj] += d;
+      sums[j * k + li] += d;
+    }
+  }
+  return p;
 }
