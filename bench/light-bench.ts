@@ -2,18 +2,24 @@
  * Light-identification benchmark (DESIGN.md section 7 reference session: 1,000 units,
  * ~2 h, 10,000 pulses). Prints timings; tests never time.
  *
- *   npx tsx bench/light-bench.ts [--units 1000] [--full]
+ *   npx tsx bench/light-bench.ts [--units 1000] [--full] [--session]
  *
  * Spikes: gamma renewal trains (core/sim/renewal-train.ts), rates log-uniform 0.5-20 Hz;
  * pulses: the simulator's benchmark light block (2,000 single pulses, 400 trains of 10 at
  * 10 Hz and 400 at 20 Hz). Timed: the schedule, the per-unit engine (first-spike scan,
  * SALT, count test; detail off and on), the trust simulation of three grid nodes, and
  * with --full the whole light step (including every trust node). Wall and CPU time.
+ * --session: also the light step on the cached reference session of `npm run bench`
+ * (bench/bench-session.ts; written once if missing), three times in this process (the
+ * first includes compiling the code), as `step light` there measures it.
  */
 import { DEFAULTS, type Parameters } from '../core/defaults';
 import { createLightScratch, lightResponse } from '../core/light/light-response';
 import { lightSchedule } from '../core/light/light-schedule';
 import { lightStep } from '../core/light/light-step';
+import { loadSession } from '../core/node/load-session';
+import { resolveParameters } from '../core/resolve-parameters';
+import { ensureBenchSession } from './bench-session';
 import { ruleTrust } from '../core/light/rule-trust';
 import { simulationIntervals } from '../core/light/simulation-intervals';
 import { emptyEvents, emptyTrials } from '../core/model/empty';
@@ -81,4 +87,19 @@ if (full) {
   const res = lightStep.run({ recording: rec, parameters: p, columns: new Map() });
   const tr = (res.summary as { trust: { cells: unknown[]; nullSimulationsPerNode: number; powerSimulationsPerStep: number } }).trust;
   console.log(`full light step: ${ms(t0)} (${tr.cells.length} trust nodes, ${tr.nullSimulationsPerNode} null units and ${tr.powerSimulationsPerStep} responders per power step each)`);
+}
+
+if (process.argv.includes('--session')) {
+  const bs = ensureBenchSession(7, 1000, (m) => console.log(m));
+  const imp = await loadSession(bs.npyDir);
+  const parameters = resolveParameters(imp.parameterSources);
+  const rec = imp.recording;
+  let nSpikes = 0;
+  for (const u of rec.units) nSpikes += u.spikeTimes.length;
+  for (let k = 1; k <= 3; k++) {
+    t0 = mark();
+    const res = lightStep.run({ recording: rec, parameters, columns: new Map() });
+    const tr = (res.summary as { trust: { nodes: number } }).trust;
+    console.log(`light step on the reference session (${rec.units.length} units, ${(nSpikes / 1e6).toFixed(1)} M spikes, ${rec.pulses.onset.length} pulses, ${tr.nodes} trust nodes), run ${k}: ${ms(t0)}`);
+  }
 }

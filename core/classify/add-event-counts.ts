@@ -1,4 +1,5 @@
 import { addWindowCounts } from '../align/add-window-counts';
+import { lowerBoundFrom } from '../align/lower-bound-from';
 
 /**
  * Adds the spike counts around every alignment time into one histogram:
@@ -16,9 +17,11 @@ export function addEventCounts(
   out: Float64Array,
   offset = 0,
 ): void {
-  let hint = 0; // galloping search from the previous event's first spike
+  const n = spikeTimes.length;
+  const rateHz = n > 1 ? (n - 1) / (spikeTimes[n - 1] - spikeTimes[0]) : 0;
+  let hint = 0; // search from where the previous event's window ended, guessing long gaps from the mean rate
   for (let k = 0; k < alignTimes.length; k++) {
     const a = alignTimes[k];
-    if (Number.isFinite(a)) hint = addWindowCounts(spikeTimes, a + startS, binS, nBins, out, offset, hint);
+    if (Number.isFinite(a)) hint = addWindowCounts(spikeTimes, a + startS, binS, nBins, out, offset, lowerBoundFrom(spikeTimes, a + startS, hint, rateHz));
   }
 }

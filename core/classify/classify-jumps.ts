@@ -1,8 +1,7 @@
-import { addWindowCounts } from '../align/add-window-counts';
-import { lowerBoundNear } from '../align/lower-bound-near';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { benjaminiHochberg } from '../stats/benjamini-hochberg';
+import { eventWindowCounts } from './event-window-counts';
 import { formatP } from './format-p';
 import { jumpUnit, type JumpUnitResult } from './jump-unit';
 import { referenceProfile, type ReferenceProfile, type ReferenceProfileScratch } from './reference-profile';
@@ -108,18 +107,17 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
     };
   });
   const counts = new Float64Array(nPsth);
-  // Spikes in [a, b) searched from a hint near a (lowerBoundNear; same counts as countInWindow).
-  let hint = 0;
-  const inWindow = (st: Float64Array, a: number, b: number): number => {
-    if (!(b > a)) return 0;
-    hint = lowerBoundNear(st, a, hint);
-    return lowerBoundNear(st, b, hint) - hint;
-  };
+  // Window edges relative to each jump: pre, post (answer), late.
+  const edges = Float64Array.of(params.preStartS, params.preEndS, params.postStartS, params.postEndS, params.lateStartS, params.lateEndS);
+  const inWindows = new Float64Array(3);
+  const jumpOpts = { minEvents: params.minEvents, exactMaxN: params.exactMaxN, zThreshold: params.zThreshold, runBins: params.latencyRunBins };
 
   for (let u = 0; u < nUnits; u++) {
     const st = recording.units[u].spikeTimes;
+    const rateHz = st.length > 1 ? (st.length - 1) / (st[st.length - 1] - st[0]) : 0;
     const profile: ReferenceProfile | null = refStarts.length > 0 ? referenceProfile(st, refStarts, refStops, profileLength, 0.001, scratch) : null;
-    groups.forEach((idx, g) => {
+    for (let g = 0; g < groups.length; g++) {
+      const idx = groups[g];
       const n = idx.length;
       const { pre, post, late, cPost, cLate, size } = buffers[g];
       cPost.fill(0);
@@ -127,14 +125,15 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
       const psth = new Float64Array(nPsth);
       counts.fill(0);
       let controlled = 0;
-      hint = 0;
-      let psthHint = 0;
+      let hint = 0;
       for (let e = 0; e < n; e++) {
         const i = idx[e];
         const t = all.times[i];
-        pre[e] = inWindow(st, t + params.preStartS, t + params.preEndS) / preLen;
-        post[e] = inWindow(st, t + params.postStartS, t + params.postEndS) / postLen;
-        late[e] = inWindow(st, t + params.lateStartS, t + params.lateEndS) / lateLen;
+        // Spikes in the three windows and the event-averaged PSTH counts, one walk (eventWindowCounts).
+        hint = eventWindowCounts(st, t, edges, inWindows, psthStartS, binS, nPsth, counts, hint, rateHz);
+        pre[e] = inWindows[0] / preLen;
+        post[e] = inWindows[1] / postLen;
+        late[e] = inWindows[2] / lateLen;
         const ta = tau[i];
         if (profile && ta === ta) {
           const rPre = profile.meanRate(ta + params.preStartS, ta + params.preEndS);
@@ -147,19 +146,11 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
             profile.addBins(ta + psthStartS, binS, nPsth, -1 / n, psth);
           }
         }
-        // Event-averaged PSTH counts (as addEventCounts, in the same pass over the events).
-        if (Number.isFinite(t)) psthHint = addWindowCounts(st, t + psthStartS, binS, nPsth, counts, 0, psthHint);
       }
       for (let j = 0; j < nPsth; j++) psth[j] += counts[j] / (binS * n);
       if (u === 0) controlledCount[g] = controlled;
-      perKindUnits[g].push(
-        jumpUnit(
-          { pre, post, late, controlPost: cPost, controlLate: cLate, psth, psthStartS, binS, size },
-          params,
-          { minEvents: params.minEvents, exactMaxN: params.exactMaxN, zThreshold: params.zThreshold, runBins: params.latencyRunBins },
-        ),
-      );
-    });
+      perKindUnits[g].push(jumpUnit({ pre, post, late, controlPost: cPost, controlLate: cLate, psth, psthStartS, binS, size }, params, jumpOpts));
+    }
   }
 
   const kinds: JumpKindResult[] = kindNames.map((kind, g) => {

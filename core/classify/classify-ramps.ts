@@ -58,10 +58,39 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
   const units: RampUnitResult[] = [];
   const p = new Float64Array(nUnits);
   const buffer = plan.mode === 'fixed' ? new Float64Array(0) : new Float64Array(plan.nTrials * centresS.length);
+
+  // Per-condition slopes and their difference from the reference condition
+  // (warped windows use the reference template, so slopes compare per reference second).
+  const labels = [...new Set(recording.trials.condition.filter((c) => c !== ''))].sort();
+  const hasReference = params.condition !== '' && labels.includes(params.condition) && plan.nTrials > 0;
+  const perCondition = labels.map((c) => {
+    const isReference = c === params.condition && plan.nTrials > 0;
+    const cp = isReference ? plan : rampPlan(recording, params, c, plan.template ?? undefined);
+    return {
+      condition: c,
+      isReference,
+      cp,
+      cBuffer: cp.mode === 'fixed' ? new Float64Array(0) : new Float64Array(cp.nTrials * cp.centresS.length),
+      slope: new Float64Array(nUnits).fill(NaN),
+      diffP: new Float64Array(nUnits).fill(NaN),
+      active: cp.nTrials > 0 && cp.centresS.length === centresS.length,
+    };
+  });
+
+  // Unit by unit, every condition in turn: the unit's spike train is read
+  // while it is still in the processor's cache.
   for (let u = 0; u < nUnits; u++) {
-    const r = unitRamp(recording.units[u].spikeTimes, plan, buffer, params.minTrials, params.exactMaxN);
+    const spikeTimes = recording.units[u].spikeTimes;
+    const r = unitRamp(spikeTimes, plan, buffer, params.minTrials, params.exactMaxN);
     units.push(r);
     p[u] = r.p;
+    for (const k of perCondition) {
+      if (!k.active) continue;
+      const rc = k.isReference ? r : unitRamp(spikeTimes, k.cp, k.cBuffer, Infinity, params.exactMaxN, false);
+      k.slope[u] = rc.slopeHzPerS;
+      // numerators over one common denominator: the same rank-sum test as on the slopes
+      if (hasReference && !k.isReference && k.cp.nTrials >= 2 && plan.nTrials >= 2) k.diffP[u] = mannWhitney(rc.rankKeys, r.rankKeys).p;
+    }
   }
   const q = benjaminiHochberg(p);
   const verdict: string[] = [];
@@ -92,34 +121,17 @@ export function classifyRamps(recording: Recording, params: Parameters['ramp']):
     }
   }
 
-  // Per-condition slopes and their difference from the reference condition
-  // (warped windows use the reference template, so slopes compare per reference second).
-  const conditions: ConditionRamps[] = [];
-  const labels = [...new Set(recording.trials.condition.filter((c) => c !== ''))].sort();
-  const hasReference = params.condition !== '' && labels.includes(params.condition) && plan.nTrials > 0;
-  for (const c of labels) {
-    const isReference = c === params.condition && plan.nTrials > 0;
-    const cp = isReference ? plan : rampPlan(recording, params, c, plan.template ?? undefined);
-    const cBuffer = cp.mode === 'fixed' ? new Float64Array(0) : new Float64Array(cp.nTrials * cp.centresS.length);
-    const slope = new Float64Array(nUnits).fill(NaN);
-    const diffP = new Float64Array(nUnits).fill(NaN);
-    if (cp.nTrials > 0 && cp.centresS.length === centresS.length) {
-      for (let u = 0; u < nUnits; u++) {
-        const r = isReference
-          ? units[u]
-          : unitRamp(recording.units[u].spikeTimes, cp, cBuffer, Infinity, params.exactMaxN);
-        slope[u] = r.slopeHzPerS;
-        if (hasReference && !isReference && cp.nTrials >= 2 && plan.nTrials >= 2) diffP[u] = mannWhitney(r.trialSlopes, units[u].trialSlopes).p;
-      }
-    }
-    conditions.push({ condition: c, nTrials: cp.nTrials, slopeHzPerS: slope, diffP });
-  }
+  const conditions: ConditionRamps[] = perCondition.map((k) => ({ condition: k.condition, nTrials: k.cp.nTrials, slopeHzPerS: k.slope, diffP: k.diffP }));
   return { verdict, reason, q, units, conditions, centresS, note: plan.note, nTrials: plan.nTrials, mode: plan.mode };
 }
 
-/** One unit's ramp statistics under a plan: straight from the spikes for the fixed window, via counts and exposure when warped. */
-function unitRamp(spikeTimes: Float64Array, plan: RampPlan, buffer: Float64Array, minTrials: number, exactMaxN: number): RampUnitResult {
-  if (plan.mode === 'fixed') return rampUnitFromSpikes(spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS, minTrials, exactMaxN);
+/**
+ * One unit's ramp statistics under a plan: straight from the spikes for the
+ * fixed window, via counts and exposure when warped. tests = false: slopes
+ * only (the other conditions' comparison uses no GLM and no signed-rank test).
+ */
+function unitRamp(spikeTimes: Float64Array, plan: RampPlan, buffer: Float64Array, minTrials: number, exactMaxN: number, tests = true): RampUnitResult {
+  if (plan.mode === 'fixed') return rampUnitFromSpikes(spikeTimes, plan.times, plan.startS, plan.binS, plan.centresS, minTrials, exactMaxN, tests);
   const c = rampCounts(spikeTimes, plan, buffer);
-  return rampUnit(c.counts, plan.nTrials, plan.centresS, plan.binS, minTrials, exactMaxN, c.exposureS);
+  return rampUnit(c.counts, plan.nTrials, plan.centresS, plan.binS, minTrials, exactMaxN, c.exposureS, tests);
 }

@@ -1,7 +1,7 @@
-import { PCA } from 'ml-pca';
 import type { Parameters } from '../defaults';
 import type { Recording } from '../model/types';
 import { kMeansRestarts } from '../stats/k-means-restarts';
+import { pcaScores } from '../stats/pca-scores';
 import { pairwiseDistances } from '../stats/pairwise-distances';
 import { silhouette } from '../stats/silhouette';
 import { responseFeatures, type FeatureSegment } from './response-features';
@@ -79,13 +79,14 @@ export function clusterUnits(recording: Recording, params: Parameters): UnitClus
   }
   const nUsed = rows.length;
   if (nUsed < Math.max(cp.minUnits, cp.kMin + 1)) return empty(`only ${nUsed} units with a response (need ${Math.max(cp.minUnits, cp.kMin + 1)})`, nUsed);
-  // Eigen-decomposition of the dim x dim covariance: same components as the SVD, far cheaper for many units.
-  const pca = new PCA(rows, { center: true, scale: false, method: 'covarianceMatrix' });
-  const ev = pca.getExplainedVariance();
+  // Eigen-decomposition of the dim x dim covariance: same components as the SVD, far cheaper for many units
+  // (pcaScores: ml-pca's covariance-matrix PCA to the last bit, on flat arrays).
+  const flat = new Float64Array(nUsed * f.dim);
+  for (let i = 0; i < nUsed; i++) flat.set(rows[i], i * f.dim);
+  const pca = pcaScores(flat, f.dim);
+  const ev = pca.explainedVariance;
   const nComp = Math.max(1, Math.min(cp.components, f.dim, nUsed - 1, ev.filter((x) => x > 1e-12).length));
-  const scores = pca.predict(rows, { nComponents: nComp });
-  const pts = new Float64Array(nUsed * nComp);
-  for (let i = 0; i < nUsed; i++) for (let c = 0; c < nComp; c++) pts[i * nComp + c] = scores.get(i, c);
+  const pts = pca.scores(nComp);
   // Pairwise distances once for every k (4 n^2 bytes; skipped for very large populations).
   const distances = nUsed <= 4000 ? pairwiseDistances(pts, nComp) : undefined;
   const byK: { k: number; mean: number }[] = [];

@@ -12,22 +12,27 @@ import type { RampUnitResult } from './ramp-unit';
  */
 export interface RampSums {
   readonly nTrials: number;
-  /** Per-trial slopes, Hz/s. */
+  /** Per-trial slopes, Hz/s, and the values the rank tests use (RampUnitResult.rankKeys). */
   readonly trialSlopes: Float64Array;
+  readonly rankKeys: Float64Array;
   /** Per bin: sum of counts, of exposure (s), of count^2 / exposure, of per-trial rates and of their squares. */
-  readonly s1: number[];
-  readonly se: number[];
-  readonly sq: number[];
-  readonly sr: number[];
-  readonly sr2: number[];
+  readonly s1: ArrayLike<number>;
+  readonly se: ArrayLike<number>;
+  readonly sq: ArrayLike<number>;
+  readonly sr: ArrayLike<number>;
+  readonly sr2: ArrayLike<number>;
   /** Total count and total exposure (s). */
   readonly total: number;
   readonly totalE: number;
 }
 
-/** Effect sizes, signed-rank test and Poisson GLM from the sums (see rampUnit's header). */
-export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: number, exactMaxN: number): RampUnitResult {
-  const { nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE } = sums;
+/**
+ * Effect sizes, signed-rank test and Poisson GLM from the sums (see rampUnit's
+ * header). tests = false skips the signed-rank test and the GLM (their fields
+ * are NaN, direction 0): the per-condition comparison needs only the slopes.
+ */
+export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: number, exactMaxN: number, tests = true): RampUnitResult {
+  const { nTrials, trialSlopes, rankKeys, s1, se, sq, sr, sr2, total, totalE } = sums;
   const nBins = centresS.length;
   let mx = 0;
   for (let j = 0; j < nBins; j++) mx += centresS[j];
@@ -41,7 +46,7 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     semRate[j] = Math.sqrt(Math.max(0, v) / nTrials);
   }
   const meanRateHz = nTrials > 0 && totalE > 0 ? total / totalE : NaN;
-  const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate) : null;
+  const fit = nTrials > 0 && nBins >= 2 ? linearFit(centresS, meanRate, false) : null; // slope, intercept, R^2: no t test needed
   const third = Math.max(1, Math.floor(nBins / 3));
   let early = 0;
   let late = 0;
@@ -49,12 +54,13 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     early += meanRate[j];
     late += meanRate[nBins - 1 - j];
   }
-  const test = nTrials >= minTrials ? wilcoxonSignedRank(trialSlopes, exactMaxN) : null;
+  // On rankKeys: the same test as on the slopes (same order, ties and signs), sorted by counting.
+  const test = tests && nTrials >= minTrials ? wilcoxonSignedRank(rankKeys, exactMaxN) : null;
 
   let glmSlopePerS = NaN;
   let glmLrtP = NaN;
   let glmDispersion = NaN;
-  if (nTrials > 0 && total > 0 && nBins >= 2) {
+  if (tests && nTrials > 0 && total > 0 && nBins >= 2) {
     const X: number[] = new Array<number>(nBins * 2);
     const offset: number[] = new Array<number>(nBins);
     for (let j = 0; j < nBins; j++) {
@@ -83,6 +89,7 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
     r2: fit ? fit.r2 : NaN,
     lateEarlyRatio: early > 0 ? late / early : NaN,
     trialSlopes,
+    rankKeys,
     p: test ? test.p : NaN,
     direction: test ? test.direction : 0,
     statistic: test ? test.statistic : NaN,
@@ -96,16 +103,20 @@ export function rampSummary(sums: RampSums, centresS: Float64Array, minTrials: n
   };
 }
 
-/** Sum of binS over nTrials (per bin) and over nTrials x nBins cells, added one by one as a dense pass would; the last result is kept (every unit of a session asks the same). */
-let lastSums = { binS: NaN, nTrials: -1, nBins: -1, perBin: 0, total: 0 };
+/** Sum of binS over nTrials (per bin) and over nTrials x nBins cells, added one by one as a dense pass would; kept per (binS, nTrials, nBins) (every unit of a session asks the same few). */
+const exposureSums = new Map<string, { perBin: number; total: number }>();
 export function equalExposureSums(binS: number, nTrials: number, nBins: number): { perBin: number; total: number } {
-  if (lastSums.binS === binS && lastSums.nTrials === nTrials && lastSums.nBins === nBins) return lastSums;
+  const key = `${binS}|${nTrials}|${nBins}`;
+  const hit = exposureSums.get(key);
+  if (hit) return hit;
   let perBin = 0;
   for (let k = 0; k < nTrials; k++) perBin += binS;
   let total = 0;
   for (let i = 0; i < nTrials * nBins; i++) total += binS;
-  lastSums = { binS, nTrials, nBins, perBin, total };
-  return lastSums;
+  if (exposureSums.size > 64) exposureSums.clear();
+  const sums = { perBin, total };
+  exposureSums.set(key, sums);
+  return sums;
 }
 
 /** Counts below this use the division tables of countTables. */

@@ -16,6 +16,14 @@ export interface RampUnitResult {
   readonly lateEarlyRatio: number;
   /** Per-trial slopes, Hz/s. */
   readonly trialSlopes: Float64Array;
+  /**
+   * Per-trial values in the same order, with the same ties and signs, as
+   * trialSlopes, for the rank tests: with equal bins the slopes' integer
+   * numerators w (slope = w / (2 binS^2 sum_j (j - (nBins - 1) / 2)^2), one
+   * positive denominator for every trial and every condition), which rank
+   * tests sort by counting; otherwise the slopes themselves.
+   */
+  readonly rankKeys: Float64Array;
   /** Two-sided Wilcoxon signed-rank p of the per-trial slopes (NaN with too few trials). */
   readonly p: number;
   /** +1 / -1 / 0: side of the signed-rank statistic (more positive or negative slopes). */
@@ -56,6 +64,7 @@ export interface RampUnitResult {
  *    dispersion well above 1 means its p is too small.
  *
  * exactMaxN: largest trial count for the exact signed-rank distribution.
+ * tests = false leaves out the signed-rank test and the GLM (NaN fields).
  */
 export function rampUnit(
   counts: Float64Array,
@@ -65,9 +74,11 @@ export function rampUnit(
   minTrials: number,
   exactMaxN = 30,
   exposureS?: Float64Array,
+  tests = true,
 ): RampUnitResult {
   const nBins = centresS.length;
   const trialSlopes = new Float64Array(nTrials);
+  let rankKeys = trialSlopes;
   // Per-bin sums as plain arrays (allocated on the JS heap: typed arrays this
   // size each cost an external allocation, which adds up over units x conditions).
   const s1: number[] = new Array<number>(nBins).fill(0); // sum of counts
@@ -115,6 +126,8 @@ export function rampUnit(
     const e = binS;
     // c / e and c^2 / e for small counts, computed once (the same divisions, so the same values).
     const tab = countTables(e);
+    const denom = 2 * binS * binS * sjj;
+    if (denom > 0 && denom < Infinity) rankKeys = new Float64Array(nTrials);
     for (let k = 0; k < nTrials; k++) {
       const row = k * nBins;
       // Integer weights 2j - (nBins - 1) keep the numerator exact, so trials
@@ -133,10 +146,11 @@ export function rampUnit(
         w += (2 * j - (nBins - 1)) * c;
       }
       trialSlopes[k] = w / (2 * binS * binS * sjj);
+      if (rankKeys !== trialSlopes) rankKeys[k] = w;
     }
     const sums = equalExposureSums(binS, nTrials, nBins);
     se.fill(sums.perBin);
     totalE = sums.total;
   }
-  return rampSummary({ nTrials, trialSlopes, s1, se, sq, sr, sr2, total, totalE }, centresS, minTrials, exactMaxN);
+  return rampSummary({ nTrials, trialSlopes, rankKeys, s1, se, sq, sr, sr2, total, totalE }, centresS, minTrials, exactMaxN, tests);
 }

@@ -2,6 +2,7 @@
 export { lightSchedule, type LightSchedule } from './light-schedule';
 export { lightResponse, createLightScratch, type LightResponse, type LightScratch } from './light-response';
 export { saltTest, createSaltScratch, type SaltResult } from './salt-test';
+export { saltBaseline, type SaltBaseline } from './salt-baseline';
 export { modifiedJsDistance } from './modified-js-distance';
 export { artefactFlags, LOCKED_SHARE, OFFSET_LOCKED_SHARE, type ArtefactFlag } from './artefact-flags';
 export { tagVerdict, type TagVerdict } from './tag-verdict';

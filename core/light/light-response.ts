@@ -1,9 +1,10 @@
 import { lowerBound } from '../align/lower-bound';
-import { gallopBound } from '../align/gallop-bound';
+import { lowerBoundNear } from '../align/lower-bound-near';
 import { selectKth } from './select-kth';
 import { poissonSf } from '../stats/distributions/poisson';
 import type { Parameters } from '../defaults';
 import type { LightSchedule } from './light-schedule';
+import { saltBaseline, type SaltBaseline } from './salt-baseline';
 import { createSaltScratch, saltTest, type SaltResult, type SaltScratch } from './salt-test';
 
 /** One unit's answer to the session's pulses. Times in seconds, rates in Hz. */
@@ -49,15 +50,15 @@ export interface LightResponse {
   readonly offsetAnswered: number;
   readonly offsetJitterS: number;
   readonly offsetCountP: number;
-  /** Per frequency group (schedule.frequencyKeys order): pulses, reliability, mean latency (s). Only with detail. */
+  /** Per frequency group (schedule.frequencyKeys order): pulses, reliability, mean latency (s). Only with detail (true or 'summary'). */
   readonly frequencyPulses?: Float64Array;
   readonly frequencyReliability?: Float64Array;
   readonly frequencyLatencyS?: Float64Array;
-  /** First-spike latency after onset per pulse, s (NaN = no spike in window). Only with detail. */
+  /** First-spike latency after onset per pulse, s (NaN = no spike in window). Only with detail true (not 'summary'). */
   readonly latencyS?: Float64Array;
 }
 
-/** Reusable buffers of lightResponse (one per thread of work; grow on demand). */
+/** Reusable buffers of lightResponse and ruleTrust (one per thread of work; grow on demand). */
 export interface LightScratch {
   rel: Float64Array;
   /** Latencies for the median (selection reorders it). */
@@ -65,11 +66,13 @@ export interface LightScratch {
   counts: Int32Array;
   fine: Int32Array;
   salt: SaltScratch;
+  /** ruleTrust: simulated spikes (test, baseline, offset stretches) and the power search's draws. */
+  sim: Float64Array<ArrayBuffer>[];
 }
 
-/** Empty scratch space for lightResponse. */
+/** Empty scratch space for lightResponse and ruleTrust. */
 export function createLightScratch(): LightScratch {
-  return { rel: new Float64Array(0), med: new Float64Array(0), counts: new Int32Array(0), fine: new Int32Array(0), salt: createSaltScratch() };
+  return { rel: new Float64Array(0), med: new Float64Array(0), counts: new Int32Array(0), fine: new Int32Array(0), salt: createSaltScratch(), sim: [] };
 }
 
 /**
@@ -99,19 +102,34 @@ export function createLightScratch(): LightScratch {
  *
  * saltMinExcess: SALT is skipped (p NaN) when the excess reliability is below
  * it (the trust simulation's shortcut: such a unit cannot be `tagged`).
+ * baseline: SALT's baseline half (saltBaseline) of a train with the same
+ * spikes in the baseline blocks, used instead of scanning them (the trust
+ * simulation's responders: same null train, added spikes after the pulses);
+ * the result is then that of the train with those baseline spikes.
  *
- * Cost: one binary search per pulse and window stretch, then one pass over the
- * spikes inside; no allocation per pulse (detail = false allocates nothing once
- * the scratch has grown). Edge cases: no pulses -> pulses 0 and NaN measures;
- * no spikes -> reliability 0, NaN latencies.
+ * detail: false gives no median, per-frequency figures or per-pulse
+ * latencies; 'summary' the median and per-frequency figures; true also the
+ * per-pulse latencies (latencyS, one array of pulses' length per call: on
+ * this machine allocating it cost more than the whole scan, so the light step
+ * asks for it only when the waveform match needs it).
+ *
+ * Cost: two forward walks over the spikes (lowerBoundNear from the previous
+ * window: the test windows in pulse order, then the SALT baseline blocks in
+ * time order, schedule.saltBlockOrder), reading each spike inside a window
+ * once; no allocation per pulse (detail false or 'summary' allocate nothing
+ * per pulse once the scratch has grown). Results do not depend on the order
+ * the blocks are read in (integer counts). Spike times must be sorted (as a
+ * Recording's are). Edge cases: no pulses -> pulses 0 and NaN measures; no
+ * spikes -> reliability 0, NaN latencies.
  */
 export function lightResponse(
   spikeTimes: Float64Array,
   sch: LightSchedule,
   p: Parameters['light'],
-  detail = false,
+  detail: boolean | 'summary' = false,
   scratch: LightScratch = createLightScratch(),
   saltMinExcess = -Infinity,
+  baseline?: SaltBaseline,
 ): LightResponse {
   const n = sch.n;
   const ns = spikeTimes.length;
@@ -138,10 +156,18 @@ export function lightResponse(
   let sumL2 = 0;
   let allSum = 0;
   let allSum2 = 0;
+  const onset = sch.onset;
   for (let i = 0; i < n; i++) {
-    const lo = sch.onset[i] + ws;
+    const lo = onset[i] + ws;
     const hi = lo + wn;
-    idx = gallopBound(spikeTimes, lo, idx);
+    // lowerBoundNear(spikeTimes, lo, idx), its usual case (a few steps forward) written out:
+    // a call per pulse cost more than the walk.
+    if (idx < ns && spikeTimes[idx] < lo) {
+      let q = 0;
+      do idx++;
+      while (idx < ns && spikeTimes[idx] < lo && ++q < 8);
+      if (idx < ns && spikeTimes[idx] < lo) idx = lowerBoundNear(spikeTimes, lo, idx);
+    } else if (idx > 0 && spikeTimes[idx - 1] >= lo) idx = lowerBoundNear(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       rel[i] = r;
@@ -168,13 +194,16 @@ export function lightResponse(
   let sumO = 0;
   let sumO2 = 0;
   idx = 0;
-  for (let i = 0; i < n; i++) {
-    const lo = sch.offset[i];
-    // Offsets inside the test window are covered by the test window's own zero-jitter check.
-    if (!Number.isFinite(lo) || lo < sch.onset[i] + sch.windowEndS) continue;
+  // Offsets inside the test window are covered by the test window's own zero-jitter check:
+  // only the pulses of sch.offsetPulses (offset at or after the test window's end) are read.
+  const offList = sch.offsetPulses;
+  const offset = sch.offset;
+  for (let k = 0; k < offList.length; k++) {
+    const i = offList[k];
+    const lo = offset[i];
     offsetPulses++;
     const hi = lo + offsetWindowS;
-    idx = gallopBound(spikeTimes, lo, idx);
+    idx = lowerBoundNear(spikeTimes, lo, idx);
     if (idx < ns && spikeTimes[idx] < hi) {
       const r = spikeTimes[idx] - lo;
       offsetAnswered++;
@@ -203,43 +232,24 @@ export function lightResponse(
     if (scratch.counts.length < size) scratch.counts = new Int32Array(size);
     const counts = scratch.counts;
     counts.fill(0, 0, size);
-    let baseSpikes = 0;
-    let baseAnswered = 0;
-    let hint = 0;
+    // Test row: the first-spike class of every SALT pulse.
+    const saltPulses = sch.saltPulses;
     for (let k = 0; k < m; k++) {
-      const i = sch.saltPulses[k];
-      const r = rel[i];
+      const r = rel[saltPulses[k]];
       if (r === r) {
         let b = Math.floor(r / binS);
         if (b >= nBins) b = nBins - 1;
         counts[1 + b]++;
       } else counts[0]++;
-      const start = sch.anchor[i] - J * wn;
-      const end = sch.anchor[i];
-      let last = -1;
-      hint = gallopBound(spikeTimes, start, hint);
-      for (let j = hint; j < ns; j++) {
-        const t = spikeTimes[j];
-        if (t >= end) break;
-        baseSpikes++;
-        let w = Math.floor((t - start) / wn);
-        if (w >= J) w = J - 1;
-        if (w === last) continue;
-        last = w;
-        const r0 = t - (start + w * wn);
-        let b = Math.floor(r0 / binS);
-        if (b >= nBins) b = nBins - 1;
-        if (b < 0) b = 0;
-        counts[(1 + w) * classes + 1 + b]++;
-        baseAnswered++;
-      }
     }
-    for (let w = 0; w < J; w++) {
-      let c = 0;
-      const o = (1 + w) * classes;
-      for (let b = 1; b < classes; b++) c += counts[o + b];
-      counts[o] = m - c;
-    }
+    // Baseline rows 1..J (scanned here, or the caller's for a train with the same baseline spikes).
+    let base: SaltBaseline;
+    if (baseline) {
+      counts.set(baseline.rows.subarray(0, J * classes), classes);
+      base = baseline;
+    } else base = saltBaseline(spikeTimes, sch, counts.subarray(classes, size));
+    const baseSpikes = base.spikes;
+    const baseAnswered = base.answered;
     if (answered / n - baseAnswered / (m * J) >= saltMinExcess) salt = saltTest(counts, J + 1, classes, m, scratch.salt);
     baselineHz = baseSpikes / (m * J * wn);
     baselineSource = 'salt-windows';
@@ -307,28 +317,29 @@ export function lightResponse(
   let frequencyReliability: Float64Array | undefined;
   let frequencyLatencyS: Float64Array | undefined;
   if (detail) {
-    latencyS = new Float64Array(n);
+    // Median and per-frequency figures from rel (no allocation per pulse; the
+    // per-pulse latencies are copied out only when detail is true).
+    if (detail === true) latencyS = new Float64Array(n);
     if (scratch.med.length < n) scratch.med = new Float64Array(n);
     const med = scratch.med;
-    let got = 0;
-    for (let i = 0; i < n; i++) {
-      const l = rel[i] + ws;
-      latencyS[i] = l;
-      if (l === l) med[got++] = l;
-    }
-    if (got) medianLatencyS = got % 2 ? selectKth(med, got, (got - 1) / 2) : medianOfEven(med, got);
     const nf = sch.frequencyKeys.length;
     frequencyPulses = new Float64Array(nf);
     const fAns = new Float64Array(nf);
     const fSum = new Float64Array(nf);
+    const fIndex = sch.frequencyIndex;
+    let got = 0;
     for (let i = 0; i < n; i++) {
-      const f = sch.frequencyIndex[i];
+      const l = rel[i] + ws;
+      if (latencyS) latencyS[i] = l;
+      const f = fIndex[i];
       frequencyPulses[f]++;
-      if (latencyS[i] === latencyS[i]) {
+      if (l === l) {
+        med[got++] = l;
         fAns[f]++;
-        fSum[f] += latencyS[i];
+        fSum[f] += l;
       }
     }
+    if (got) medianLatencyS = got % 2 ? selectKth(med, got, (got - 1) / 2) : medianOfEven(med, got);
     frequencyReliability = new Float64Array(nf);
     frequencyLatencyS = new Float64Array(nf);
     for (let f = 0; f < nf; f++) {
@@ -378,3 +389,4 @@ function medianOfEven(x: Float64Array, n: number): number {
   for (let i = 0; i < n / 2; i++) if (x[i] > lo) lo = x[i];
   return (lo + hi) / 2;
 }
+

@@ -16,6 +16,8 @@ export interface LightSchedule {
   readonly onset: Float64Array;
   /** Pulse offsets, s (NaN when the duration is unknown). */
   readonly offset: Float64Array;
+  /** Pulses whose offset is known and falls at or after the end of their test window (the only offset windows lightResponse reads), ascending. */
+  readonly offsetPulses: Int32Array;
   /** Test window [onset + windowStartS, onset + windowEndS), s relative to onset. */
   readonly windowStartS: number;
   readonly windowEndS: number;
@@ -41,6 +43,8 @@ export interface LightSchedule {
   readonly windows: number;
   /** Pulses SALT uses (those with `windows` baseline windows available), ascending indices. */
   readonly saltPulses: Int32Array;
+  /** saltPulses sorted by the start of their baseline block (ties by pulse index): the time order a single forward walk over a unit's spikes reads the blocks in. */
+  readonly saltBlockOrder: Int32Array;
   /** Why SALT cannot run ("" when it can). */
   readonly saltProblem: string;
   /** Frequency groups: key ("single", "10hz", "12p5hz"), frequency (NaN = single pulses). */
@@ -224,11 +228,15 @@ export function lightSchedule(pulses: Pulses, span: readonly [number, number], p
   const frequencyIndex = new Int32Array(n);
   for (let i = 0; i < n; i++) frequencyIndex[i] = distinct.indexOf(Number.isNaN(freqOf[i]) ? -1 : freqOf[i]);
 
+  const offsetPulses: number[] = [];
+  for (let i = 0; i < n; i++) if (Number.isFinite(offset[i]) && offset[i] >= onset[i] + windowEndS) offsetPulses.push(i);
+
   return {
     n,
     span,
     onset,
     offset,
+    offsetPulses: Int32Array.from(offsetPulses),
     windowStartS,
     windowEndS,
     windowS,
@@ -238,6 +246,7 @@ export function lightSchedule(pulses: Pulses, span: readonly [number, number], p
     available,
     windows,
     saltPulses: Int32Array.from(salt),
+    saltBlockOrder: Int32Array.from(salt).sort((a, b) => anchor[a] - anchor[b] || a - b),
     saltProblem,
     frequencyKeys,
     frequencies,

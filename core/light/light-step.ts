@@ -110,7 +110,8 @@ export const lightStep: AnalysisStep = {
       const intervals = simulationIntervals(sch, p.offsetWindowMs / 1000);
       for (let u = 0; u < nU; u++) {
         const unit = units[u];
-        const r = lightResponse(unit.spikeTimes, sch, p, true, scratch);
+        // Per-pulse latencies only for the waveform match (raw data); 'summary' allocates nothing per pulse.
+        const r = lightResponse(unit.spikeTimes, sch, p, recording.raw ? true : 'summary', scratch);
         const free = lightFreeSpikes(unit.spikeTimes, sch.lightIntervals, recording.raw !== undefined);
         let wr = NaN;
         if (recording.raw) {

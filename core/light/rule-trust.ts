@@ -2,6 +2,7 @@ import type { Parameters } from '../defaults';
 import { Rng } from '../random/rng';
 import { artefactFlags } from './artefact-flags';
 import { createLightScratch, lightResponse, type LightScratch } from './light-response';
+import { saltBaseline, type SaltBaseline } from './salt-baseline';
 import type { LightSchedule } from './light-schedule';
 import type { simulationIntervals } from './simulation-intervals';
 import { tagVerdict } from './tag-verdict';
@@ -19,7 +20,7 @@ export interface RuleTrust {
   /** Null units simulated and how many the rule called `tagged`. */
   readonly nullSimulations: number;
   readonly falseTagged: number;
-  /** Null units whose test windows alone ruled out `tagged` (reliability < minEvokedReliability). */
+  /** Null units the excess-reliability screens ruled out (test-window reliability, or it minus the baseline's spike probability, < minEvokedReliability). */
   readonly screenedOut: number;
   /** falseTagged / nullSimulations. */
   readonly falseRate: number;
@@ -35,60 +36,139 @@ export const POWER_GRID = [0.05, 0.1, 0.15, 0.2, 0.3, 0.4, 0.5, 0.7, 1] as const
 const REFRACTORY_S = TRUST_REFRACTORY_S;
 
 /**
- * Spikes of a stationary gamma renewal process (dead time + gamma) on the merged
- * intervals laid end to end, written into buf; also counts the intervals that
- * got at least one spike, and stops (incomplete) once that count exceeds
- * stopAtHits. Starts 10 mean ISIs early (stationary).
+ * Spikes of a stationary gamma renewal process (dead time + theta x Gamma(shape))
+ * on the merged intervals laid end to end, written into buf; also counts the
+ * intervals that got at least one spike. Starts 10 mean ISIs early
+ * (stationary). Gamma draws come in order from `draws` (one stream per node).
  */
 function simulateOn(
-  rng: Rng,
+  draws: GammaDraws,
   rateHz: number,
-  shape: number,
   intervals: Float64Array,
   totalS: number,
   buf: Float64Array<ArrayBuffer>,
-  stopAtHits = Infinity,
 ): { buf: Float64Array<ArrayBuffer>; n: number; hit: number } {
   if (!(rateHz > 0) || intervals.length === 0) return { buf, n: 0, hit: 0 };
-  const theta = (1 / rateHz - REFRACTORY_S) / shape;
+  const theta = (1 / rateHz - REFRACTORY_S) / draws.shape;
+  let g = draws.buf;
+  let pos = draws.pos;
   let tau = -10 / rateHz;
   let n = 0;
   let k = 0;
   let cum = 0;
+  let len = intervals[1] - intervals[0];
   let hit = 0;
   let lastK = -1;
   for (;;) {
-    tau += REFRACTORY_S + theta * (shape === 1 ? rng.exponential() : rng.gamma(shape));
+    if (pos === g.length) {
+      draws.refill();
+      g = draws.buf;
+      pos = 0;
+    }
+    tau += REFRACTORY_S + theta * g[pos++];
     if (tau >= totalS) break;
     if (tau < 0) continue;
-    while (tau >= cum + (intervals[k + 1] - intervals[k])) {
-      cum += intervals[k + 1] - intervals[k];
+    while (tau >= cum + len) {
+      cum += len;
       k += 2;
+      len = intervals[k + 1] - intervals[k];
     }
     if (k !== lastK) {
-      if (++hit > stopAtHits) break;
+      hit++;
       lastK = k;
     }
     if (n === buf.length) {
-      const g = new Float64Array(buf.length * 2 + 16);
-      g.set(buf);
-      buf = g;
+      const grown = new Float64Array(buf.length * 2 + 16);
+      grown.set(buf);
+      buf = grown;
     }
     buf[n++] = intervals[k] + (tau - cum);
   }
+  draws.pos = pos;
   return { buf, n, hit };
 }
 
-/** A uniform in (0, 1) from a 32-bit seed and an index (murmur3 finaliser on both; 32 bits). */
-function hashUniform(seed: number, k: number): number {
-  let h = (seed ^ Math.imul(k, 0x9e3779b1) ^ Math.imul((k / 4294967296) | 0, 0x85ebca6b)) >>> 0;
-  h ^= h >>> 16;
-  h = Math.imul(h, 0x85ebca6b);
-  h ^= h >>> 13;
-  h = Math.imul(h, 0xc2b2ae35);
-  h ^= h >>> 16;
-  return ((h >>> 0) + 0.5) / 4294967296;
+/** Gamma(shape) draws in blocks (Rng.fillGammaZiggurat), read in order by simulateOn. */
+class GammaDraws {
+  buf: Float64Array;
+  pos: number;
+  constructor(
+    private readonly rng: Rng,
+    readonly shape: number,
+    buf: Float64Array,
+  ) {
+    this.buf = buf;
+    this.pos = buf.length;
+  }
+  refill(): void {
+    this.rng.fillGammaZiggurat(this.buf, this.shape);
+    this.pos = 0;
+  }
 }
+
+/**
+ * Sorts in place: insertion sort, O(n) on nearly sorted input (added spikes come
+ * in pulse order, out of order only where pulses are closer than the latency
+ * spread); after 8n moves it hands over to the built-in sort (no quadratic case).
+ */
+function insertionSort(x: Float64Array): void {
+  let budget = 8 * x.length;
+  for (let i = 1; i < x.length; i++) {
+    const v = x[i];
+    if (x[i - 1] <= v) continue;
+    let j = i - 1;
+    while (j >= 0 && x[j] > v) {
+      x[j + 1] = x[j];
+      j--;
+    }
+    x[j + 1] = v;
+    budget -= i - j;
+    if (budget < 0) {
+      x.sort();
+      return;
+    }
+  }
+}
+
+/** Whether any [onset + a, onset + b] (onsets sorted) meets a sorted list of intervals [a0, b0, ...] (within EDGE_S). */
+function windowsReach(onset: Float64Array, a: number, b: number, iv: Float64Array): boolean {
+  let j = 0;
+  for (let i = 0; i < onset.length; i++) {
+    const lo = onset[i] + a;
+    const hi = onset[i] + b;
+    while (j < iv.length && iv[j + 1] + EDGE_S <= lo) j += 2;
+    if (j < iv.length && iv[j] - EDGE_S <= hi) return true;
+  }
+  return false;
+}
+
+/** Whether any time of a sorted list falls inside (or within EDGE_S of) a sorted list of intervals [a0, b0, ...]. */
+function anyInside(times: Float64Array, iv: Float64Array): boolean {
+  let i = 0;
+  for (let k = 0; k < times.length; k++) {
+    const t = times[k];
+    while (i < iv.length && iv[i + 1] + EDGE_S <= t) i += 2;
+    if (i >= iv.length) return false;
+    if (iv[i] - EDGE_S <= t) return true;
+  }
+  return false;
+}
+
+/** Margin of the interval tests here, s (window edges computed two ways differ by far less). */
+const EDGE_S = 1e-9;
+
+/** Whether any interval of one sorted list [a0, b0, ...] overlaps (or comes within EDGE_S of) one of another's. */
+function overlaps(x: Float64Array, y: Float64Array): boolean {
+  let j = 0;
+  for (let i = 0; i < x.length; i += 2) {
+    while (j < y.length && y[j + 1] + EDGE_S <= x[i]) j += 2;
+    if (j < y.length && y[j] - EDGE_S < x[i + 1]) return true;
+  }
+  return false;
+}
+
+/** Most null units that share one simulated baseline stretch. */
+const BASELINE_SHARE = 5;
 
 function lengthOf(iv: Float64Array): number {
   let t = 0;
@@ -102,20 +182,33 @@ function lengthOf(iv: Float64Array): number {
  * trustCell) on this session's own pulse schedule (issue 3, item 7).
  *
  * Null units: stationary gamma renewal trains (2 ms dead time plus a gamma
- * interval of shape 1 / CV^2; the dead time makes the simulated CV slightly
- * smaller, by 1 - rate x 2 ms), no light effect, simulated only where the
- * analysis looks (simulationIntervals): the test windows laid end to end,
- * then the SALT baseline windows, then the offset windows, likewise (three
- * independent stretches of one process: dependence between a test window and
- * the baseline just before it is not carried over). Each unit goes through the
- * very rule the real units get (lightResponse, artefactFlags, tagVerdict; no
- * waveforms). Screens (when the test windows are disjoint): `tagged` needs an
- * excess reliability (test-window reliability minus the baseline windows'
- * spike probability) >= minEvokedReliability, and both are counted while the
- * spikes are simulated (windows with a spike), so a unit below it (with a
- * 0.001 margin for window edges computed two ways) is counted as not tagged
- * without the rest of the rule: exact, and nearly every null unit stops there.
- * falseRate = share called `tagged` (resolution
+ * interval of shape 1 / CV^2, drawn by Rng.gammaZiggurat; the dead time makes
+ * the simulated CV slightly smaller, by 1 - rate x 2 ms), no light effect,
+ * simulated only where the analysis looks (simulationIntervals): the test
+ * windows laid end to end, the SALT baseline blocks likewise, and the offset
+ * windows (three independent stretches of one process: dependence between a
+ * test window and the baseline just before it is not carried over). Each unit
+ * goes through the very rule the real units get (lightResponse, artefactFlags,
+ * tagVerdict; no waveforms).
+ *
+ * Shared baselines: max(trustPowerSimulations, ceil(trustNullSimulations / 5))
+ * baseline stretches are simulated, and null unit s takes stretch s mod that
+ * number (the power units each their own): every null unit's train has the
+ * same law as with a stretch of its own, so falseRate stays an unbiased
+ * estimate; units sharing a stretch are dependent only through it (its SALT
+ * rows and rate are measured over the J x pulses baseline windows, far more
+ * than the test windows, so the spread of falseRate stays near the binomial
+ * one: test/core/light/rule-trust.test.ts compares both with the earlier
+ * model, which simulated a stretch per unit). The baseline was ~70 % of the
+ * draws; each stretch's SALT half (saltBaseline) is computed once.
+ *
+ * Screens (when the test windows are disjoint): `tagged` needs an excess
+ * reliability (test-window reliability minus the baseline windows' spike
+ * probability) >= minEvokedReliability; the test windows with a spike are
+ * counted while they are simulated and the baseline's are known, so a unit
+ * below it (with a 0.001 margin for window edges computed two ways) is counted
+ * as not tagged without the rest of the rule: exact, and nearly every null
+ * unit stops there. falseRate = share called `tagged` (resolution
  * 1 / trustNullSimulations). When SALT cannot run on the schedule the rule
  * cannot call `tagged` at all: falseRate 0 and power NaN without simulation.
  *
@@ -126,7 +219,10 @@ function lengthOf(iv: Float64Array): number {
  * stops once its answer (power >= trustPower or not) is certain, so `power`
  * lists bounds: the value shown is >= trustPower for a passed step and below
  * it for a failed one. minDetectableReliability = smallest grid R with power
- * >= trustPower.
+ * >= trustPower. A responder differs from its null train only after the
+ * pulses, so lightResponse reads its test and offset spikes and takes the null
+ * stretch's SALT half (exact; the whole train instead if an added spike ever
+ * falls in a baseline block, or when offset windows reach into blocks).
  *
  * Seeded by light.seed and the node's rate and CV (not a unit's position), so
  * the numbers do not change when other units are added; bit-for-bit
@@ -150,14 +246,20 @@ export function ruleTrust(
   if (sch.windows === 0) return { ...base, nullSimulations: 0, falseTagged: 0, screenedOut: 0, falseRate: 0, minDetectableReliability: NaN, power: [] };
 
   const rng = new Rng(seed);
+  const draws = new GammaDraws(rng, shape, new Float64Array(1024));
   const J = sch.windows;
   const m = sch.saltPulses.length;
   const testS = lengthOf(iv.test);
   const baseS = lengthOf(iv.base);
   const offS = lengthOf(iv.offset);
-  let testBuf = new Float64Array(Math.ceil(testS * rateHz * 1.5) + 16);
-  let baseBuf = new Float64Array(Math.ceil(baseS * rateHz * 1.5) + 16);
-  let offBuf = new Float64Array(Math.ceil(offS * rateHz * 1.5) + 16);
+  // Buffers reused across nodes (scratch.sim): simulated stretches, then the power search's draws.
+  const buffer = (k: number, size: number): Float64Array<ArrayBuffer> => {
+    if (!scratch.sim[k] || scratch.sim[k].length < size) scratch.sim[k] = new Float64Array(size);
+    return scratch.sim[k];
+  };
+  let testBuf = buffer(0, Math.ceil(testS * rateHz * 1.5) + 16);
+  let baseBuf = buffer(1, Math.ceil(baseS * rateHz * 1.5) + 16);
+  let offBuf = buffer(2, Math.ceil(offS * rateHz * 1.5) + 16);
   let merged = new Float64Array(0);
   let merged2 = new Float64Array(0);
   const merge = (out: Float64Array, a: Float64Array, na: number, b: Float64Array, nb: number): Float64Array => {
@@ -173,63 +275,78 @@ export function ruleTrust(
     if (merged.length < na + nb) merged = new Float64Array(na + nb);
     return merge(merged, a, na, b, nb);
   };
-  const isTagged = (spikes: Float64Array): boolean => {
-    const r = lightResponse(spikes, sch, p, false, scratch, p.minEvokedReliability);
+  const isTagged = (spikes: Float64Array, baseline?: SaltBaseline): boolean => {
+    const r = lightResponse(spikes, sch, p, false, scratch, p.minEvokedReliability, baseline);
     return tagVerdict(r, NaN, artefactFlags(r, NaN, p), p, sch.saltProblem).tag === 'tagged';
   };
+
+  // Power search draws, common random numbers: for responder s and pulse i, u decides
+  // whether the pulse gets an added spike (u < R) and z its Gaussian latency; both
+  // drawn once (their own stream), so they are the same at every R.
+  const u = buffer(3, nPow * n).subarray(0, nPow * n);
+  const z = buffer(4, nPow * n).subarray(0, nPow * n);
+  const prng = new Rng(seed ^ 0x5bd1e995);
+  prng.fillUniform(u);
+  prng.fillNormalZiggurat(z);
+  const lat = p.trustPowerLatencyMs / 1000;
+  const jit = p.trustPowerJitterMs / 1000;
+  let latestS = 0;
+  for (let k = 0; k < nPow * n; k++) latestS = Math.max(latestS, lat + jit * z[k]);
+  // Can an added spike (onset + 0.2 ms ... onset + latestS) fall in a baseline block? Then
+  // the power units' baseline spikes are kept for that responder's whole train.
+  const reach = nPow > 0 && windowsReach(sch.onset, 0.0002, Math.max(0.0002, latestS), iv.base);
+
+  // Baseline stretches, each shared by at most BASELINE_SHARE null units (unit s uses
+  // baseline s mod nBase; the power units s < nPow their own). Kept: SALT's baseline
+  // half of each, and the spikes of those a train may need whole (the power units',
+  // or all when offset windows reach into baseline blocks).
+  const nBase = Math.min(nNull, Math.max(nPow, Math.ceil(nNull / BASELINE_SHARE)));
+  const overlap = overlaps(iv.offset, iv.base);
+  const baseRows: SaltBaseline[] = [];
+  const baseTrain: Float64Array[] = [];
+  for (let b = 0; b < nBase; b++) {
+    const sim = simulateOn(draws, rateHz, iv.base, baseS, baseBuf);
+    baseBuf = sim.buf;
+    const train = baseBuf.subarray(0, sim.n);
+    baseRows.push(saltBaseline(train, sch));
+    baseTrain.push((b < nPow && reach) || overlap ? train.slice() : new Float64Array(0));
+  }
+
   // Margin of the screens: window edges computed two ways may differ in the last bit.
   const screenAt = p.minEvokedReliability - 1e-3;
+  // Power units: the null train's spikes in the test and offset windows (with the
+  // baseline half, all a responder's lightResponse reads; the whole train when
+  // offset windows reach into baseline blocks).
   const keep: Float64Array[] = [];
   let falseTagged = 0;
   let screenedOut = 0;
   for (let s = 0; s < nNull; s++) {
-    const t = simulateOn(rng, rateHz, shape, iv.test, testS, testBuf);
+    const t = simulateOn(draws, rateHz, iv.test, testS, testBuf);
     testBuf = t.buf;
     const power = s < nPow;
-    // Screen 1: reliability alone (the excess reliability is at most the reliability).
-    if (!power && iv.testDisjoint && t.hit / n < screenAt) {
-      screenedOut++;
-      continue;
-    }
-    // Screen 2: excess reliability over the baseline windows (one interval per window); the
-    // baseline stops as soon as its windows with a spike make the excess too small.
+    const b = s % nBase;
     const screen = !power && iv.testDisjoint;
-    const limit = screen ? Math.floor((t.hit / n - screenAt) * J * m) : Infinity;
-    const b = simulateOn(rng, rateHz, shape, iv.base, baseS, baseBuf, limit);
-    baseBuf = b.buf;
-    if (screen && t.hit / n - b.hit / (J * m) < screenAt) {
+    // Screen 1: reliability alone (the excess reliability is at most the reliability).
+    // Screen 2: excess reliability over the baseline windows' spike probability.
+    if (screen && (t.hit / n < screenAt || t.hit / n - baseRows[b].answered / (J * m) < screenAt)) {
       screenedOut++;
       continue;
     }
-    const o = simulateOn(rng, rateHz, shape, iv.offset, offS, offBuf);
+    const o = simulateOn(draws, rateHz, iv.offset, offS, offBuf);
     offBuf = o.buf;
-    if (merged2.length < t.n + b.n) merged2 = new Float64Array(t.n + b.n);
-    const tb = merge(merged2, testBuf, t.n, baseBuf, b.n);
-    const spikes = mergeInto(tb, tb.length, offBuf, o.n);
-    if (isTagged(spikes)) falseTagged++;
+    if (merged2.length < t.n + o.n) merged2 = new Float64Array(t.n + o.n);
+    let spikes = merge(merged2, testBuf, t.n, offBuf, o.n);
+    if (overlap) spikes = mergeInto(spikes, spikes.length, baseTrain[b], baseTrain[b].length);
+    if (isTagged(spikes, overlap ? undefined : baseRows[b])) falseTagged++;
     if (power) keep.push(spikes.slice());
   }
 
-  // Power search with common random numbers.
-  // u decides which pulses get an added spike (all of them are needed); the Gaussian
-  // latency z of a pair is drawn only when the pair is first used, from a hash of
-  // (seed, pair), so it is the same at every R and independent of the search order.
-  const u = new Float64Array(nPow * n);
-  const z = new Float64Array(nPow * n).fill(NaN);
-  const prng = new Rng(seed ^ 0x5bd1e995);
-  for (let i = 0; i < u.length; i++) u[i] = prng.uniform();
-  const zAt = (k: number): number => {
-    let v = z[k];
-    if (v === v) return v;
-    const a = hashUniform(seed, 2 * k);
-    const b = hashUniform(seed, 2 * k + 1);
-    v = Math.sqrt(-2 * Math.log(a)) * Math.cos(2 * Math.PI * b);
-    z[k] = v;
-    return v;
-  };
-  const lat = p.trustPowerLatencyMs / 1000;
-  const jit = p.trustPowerJitterMs / 1000;
-  const added = new Float64Array(n);
+  scratch.sim[0] = testBuf;
+  scratch.sim[1] = baseBuf;
+  scratch.sim[2] = offBuf;
+
+  // Power search (u, z and lat, jit above).
+  const added = buffer(5, n);
   const powerAt = new Map<number, number>();
   // Power at one grid step, stopping as soon as the verdict on trustPower is certain
   // (hits needed reached, or too many misses); the recorded power is then a bound
@@ -243,9 +360,17 @@ export function ruleTrust(
     let done = 0;
     for (let s = 0; s < nPow; s++) {
       let m = 0;
-      for (let i = 0; i < n; i++) if (u[s * n + i] < R) added[m++] = sch.onset[i] + Math.max(0.0002, lat + jit * zAt(s * n + i));
-      const add = added.subarray(0, m).sort();
-      if (isTagged(mergeInto(keep[s], keep[s].length, add, m))) hits++;
+      for (let i = 0; i < n; i++) if (u[s * n + i] < R) added[m++] = sch.onset[i] + Math.max(0.0002, lat + jit * z[s * n + i]);
+      const add = added.subarray(0, m);
+      insertionSort(add);
+      let train = mergeInto(keep[s], keep[s].length, add, m);
+      // The responder's baseline half is its null train's unless an added spike fell in a block.
+      let sb: SaltBaseline | undefined = overlap ? undefined : baseRows[s];
+      if (sb && reach && anyInside(add, iv.base)) {
+        train = merge(new Float64Array(train.length + baseTrain[s].length), train, train.length, baseTrain[s], baseTrain[s].length);
+        sb = undefined;
+      }
+      if (isTagged(train, sb)) hits++;
       done++;
       if (hits >= need || done - hits > nPow - need) break;
     }

@@ -6,9 +6,9 @@ import type { LightSchedule } from './light-schedule';
  * - `test`: every pulse's test window [onset + windowStart, onset + windowEnd);
  *   `testDisjoint` is true when no two of them touch (then `test` holds exactly
  *   one interval per pulse, in pulse order);
- * - `base`: every SALT baseline window of every SALT pulse (J per pulse, the
- *   block [anchor - J w, anchor) cut into its windows), one interval each,
- *   sorted (the blocks are disjoint, so they never overlap; neighbours touch);
+ * - `base`: every SALT pulse's baseline block [anchor - J w, anchor) (the J
+ *   windows lightResponse cuts it into, whole), one interval each, sorted by
+ *   start (the blocks are disjoint, so they never overlap; neighbours touch);
  * - `offset`: the offset window [offset, offset + offsetWindowS) of every pulse
  *   ending at or after its test window (the only offset windows lightResponse
  *   reads), merged.
@@ -29,22 +29,16 @@ export function simulationIntervals(sch: LightSchedule, offsetWindowS: number): 
   }
   const J = sch.windows;
   const w = sch.windowS;
-  const blocks = Array.from(sch.saltPulses).sort((a, b) => sch.anchor[a] - sch.anchor[b]);
-  const base = new Float64Array(J > 0 ? 2 * J * blocks.length : 0);
+  const blocks = J > 0 ? sch.saltBlockOrder : new Int32Array(0);
+  const base = new Float64Array(2 * blocks.length);
   let k = 0;
   for (const i of blocks) {
-    const start = sch.anchor[i] - J * w;
-    for (let j = 0; j < J; j++) {
-      // Same window edges as lightResponse: start + j w (the last one ends at the anchor).
-      base[k++] = start + j * w;
-      base[k++] = j === J - 1 ? sch.anchor[i] : start + (j + 1) * w;
-    }
+    // Same block edges as saltBaseline: [anchor - J w, anchor).
+    base[k++] = sch.anchor[i] - J * w;
+    base[k++] = sch.anchor[i];
   }
   const iv: [number, number][] = [];
-  for (let i = 0; i < sch.n; i++) {
-    const o = sch.offset[i];
-    if (Number.isFinite(o) && o >= sch.onset[i] + sch.windowEndS) iv.push([o, o + offsetWindowS]);
-  }
+  for (const i of sch.offsetPulses) iv.push([sch.offset[i], sch.offset[i] + offsetWindowS]);
   iv.sort((x, y) => x[0] - y[0] || x[1] - y[1]);
   const offset: number[] = [];
   for (const [a, b] of iv) {

@@ -1,4 +1,5 @@
 import { addIntervalOverlap } from './add-interval-overlap';
+import { countPerBin } from './count-per-bin';
 
 /**
  * Presence ratio: the fraction of `nBins` equal time bins over [startS, stopS)
@@ -13,7 +14,8 @@ import { addIntervalOverlap } from './add-interval-overlap';
  *
  * A spike exactly at stopS counts in the last bin; spikes outside the span are
  * ignored. Returns NaN when the span is empty, nBins < 1 or no bin is
- * observed. Sorted spike times, single pass, O(n + bins + intervals).
+ * observed. Sorted spike times; the spikes per bin come from countPerBin
+ * (O(bins log n), no pass over every spike), then O(bins + intervals).
  */
 export function presenceRatio(spikeTimes: ArrayLike<number>, startS: number, stopS: number, nBins: number, observed?: ArrayLike<number>): number {
   const len = stopS - startS;
@@ -38,17 +40,9 @@ export function presenceRatio(spikeTimes: ArrayLike<number>, startS: number, sto
     }
     if (nEligible === 0) return NaN;
   }
+  const counts = new Float64Array(bins);
+  countPerBin(spikeTimes, startS, stopS, width, counts);
   let occupied = 0;
-  let last = -1;
-  for (let i = 0; i < spikeTimes.length; i++) {
-    const t = spikeTimes[i];
-    if (t < startS || t > stopS) continue;
-    let b = Math.floor((t - startS) / width);
-    if (b >= bins) b = bins - 1;
-    if (b !== last) {
-      if (eligible === null || eligible[b] === 1) occupied++;
-      last = b;
-    }
-  }
+  for (let k = 0; k < bins; k++) if (counts[k] > 0 && (eligible === null || eligible[k] === 1)) occupied++;
   return occupied / nEligible;
 }

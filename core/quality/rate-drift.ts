@@ -1,4 +1,7 @@
+import { lowerBound } from '../align/lower-bound';
+import { countPerBin } from './count-per-bin';
 import type { DriftSegments } from './drift-segments';
+import { exclusionLookup, type ExclusionLookup } from './exclusion-lookup';
 
 /**
  * Rate stability over the session. The span [startS, stopS) is cut into
@@ -20,8 +23,12 @@ import type { DriftSegments } from './drift-segments';
  * segment, so a segment's rate is that of the remaining time. A segment
  * with less than 1 % of its time left gets a NaN rate and is left out of
  * cv and slope. NaN metrics when the span is empty, fewer than 2 segments
- * have a rate, or (cv) the mean rate is 0. Single pass over sorted spikes
- * and intervals.
+ * have a rate, or (cv) the mean rate is 0. Sorted spike times: counts per
+ * segment from countPerBin (O(segments log n)), then one walk over the
+ * spikes between the first excluded interval's start and the last one's end
+ * (exclusionLookup's table from the second unit on: one read per spike);
+ * the same integer counts as one pass testing every spike.
+ * `exclude` intervals must be non-empty, sorted and non-overlapping.
  */
 export interface RateDrift {
   /** Rate in each segment, Hz. */
@@ -37,17 +44,37 @@ export function rateDrift(spikeTimes: Float64Array, segments: DriftSegments): Ra
   if (k === 0) return { ratesHz: new Float64Array(0), centresS: new Float64Array(0), cv: NaN, slopeHzPerMin: NaN };
   const len = stopS - startS;
   const counts = new Float64Array(k);
+  countPerBin(spikeTimes, startS, stopS, width, counts);
+  // Spikes inside excluded intervals come off their segment's count: a merge
+  // walk over the spikes from the first interval's start to the last one's end
+  // (with a lookup table once the same segments serve a second unit).
   const xs = segments.exclude.startS;
   const xe = segments.exclude.stopS;
-  let x = 0;
-  for (let i = 0; i < spikeTimes.length; i++) {
-    const t = spikeTimes[i];
-    if (t < startS || t > stopS) continue;
-    while (x < xs.length && xe[x] <= t) x++;
-    if (x < xs.length && xs[x] <= t) continue; // inside an excluded interval
-    let b = Math.floor((t - startS) / width);
-    if (b >= k) b = k - 1;
-    counts[b]++;
+  const nx = xs.length;
+  if (nx > 0) {
+    const n = spikeTimes.length;
+    const regionEnd = xe[nx - 1];
+    const look = lookupFor(segments);
+    let i = lowerBound(spikeTimes, Math.max(startS, xs[0]));
+    if (look) {
+      const { originS, invCellS, first } = look;
+      for (; i < n; i++) {
+        const t = spikeTimes[i];
+        if (t >= regionEnd || t > stopS) break;
+        let x = first[Math.floor((t - originS) * invCellS)];
+        if (x < 0) continue; // no interval near t
+        while (xe[x] <= t) x++;
+        if (xs[x] <= t) counts[segmentOf(t, startS, width, k)]--;
+      }
+    } else {
+      let x = 0;
+      for (; i < n; i++) {
+        const t = spikeTimes[i];
+        if (t >= regionEnd || t > stopS) break;
+        while (xe[x] <= t) x++; // stops at the last interval at the latest: t < its end
+        if (xs[x] <= t) counts[segmentOf(t, startS, width, k)]--;
+      }
+    }
   }
   const ratesHz = new Float64Array(k);
   const centresS = new Float64Array(k);
@@ -81,4 +108,29 @@ export function rateDrift(spikeTimes: Float64Array, segments: DriftSegments): Ra
   // rounding noise of a flat rate (|change over the span| < 1e-12 x mean) is written as 0
   if (Math.abs(slopeHzPerMin * (len / 60)) < 1e-12 * mean) slopeHzPerMin = 0;
   return { ratesHz, centresS, cv, slopeHzPerMin };
+}
+
+function segmentOf(t: number, startS: number, width: number, k: number): number {
+  const b = Math.floor((t - startS) / width);
+  return b >= k ? k - 1 : b;
+}
+
+/**
+ * The exclusion lookup of a session's segments, built when the same segments
+ * object serves its second unit (the quality step: one object, every unit;
+ * a figure of one unit never pays for the table).
+ */
+const lookups = new WeakMap<DriftSegments['exclude'], { uses: number; table: ExclusionLookup | null }>();
+function lookupFor(segments: DriftSegments): ExclusionLookup | null {
+  const ex = segments.exclude;
+  const entry = lookups.get(ex);
+  if (!entry) {
+    lookups.set(ex, { uses: 1, table: null });
+    return null;
+  }
+  if (entry.uses === 1) {
+    entry.uses = 2;
+    entry.table = exclusionLookup(ex.startS, ex.stopS);
+  }
+  return entry.table;
 }

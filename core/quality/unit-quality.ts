@@ -1,8 +1,6 @@
 import type { Parameters } from '../defaults';
-import { cv2 } from './cv2';
 import { hillContamination } from './hill-contamination';
-import { isiViolations } from './isi-violations';
-import { localVariation } from './local-variation';
+import { intervalMetrics } from './interval-metrics';
 import { presenceRatio } from './presence-ratio';
 import { driftSegments, type DriftSegments } from './drift-segments';
 import { rateDrift } from './rate-drift';
@@ -56,7 +54,8 @@ export function unitQuality(
   const len = t1 - t0;
   const n = s.length;
   const refractoryS = q.refractoryMs / 1000;
-  const viol = isiViolations(s, refractoryS);
+  const isi = intervalMetrics(s, refractoryS); // isiViolations, localVariation and cv2 in one pass
+  const viol = isi.violations;
   const cont = hillContamination(viol.count, n, len, refractoryS, q.censoredMs / 1000);
   const drift = rateDrift(s, segments ?? driftSegments(t0, t1, q.driftSegments));
   const shape = waveform ? waveformShape(waveform, waveformSampleRateHz) : { troughToPeakMs: NaN, halfWidthMs: NaN };
@@ -68,8 +67,8 @@ export function unitQuality(
     contamination: cont.value,
     contaminationAtLeastHalf: cont.atLeastHalf,
     presenceRatio: presenceRatio(s, t0, t1, q.presenceBins, observedIntervals),
-    lv: localVariation(s),
-    cv2: cv2(s),
+    lv: isi.lv,
+    cv2: isi.cv2,
     rateDriftCv: drift.cv,
     rateSlopeHzPerMin: drift.slopeHzPerMin,
     troughToPeakMs: shape.troughToPeakMs,

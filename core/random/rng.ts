@@ -1,3 +1,9 @@
+import { zigguratTables } from './ziggurat-tables';
+
+const ZIG = zigguratTables();
+const ZE = ZIG.exponential;
+const ZN = ZIG.normal;
+
 /**
  * Seeded pseudo-random numbers for simulation, bootstrap and permutation.
  * Core never uses unseeded randomness: every caller passes a seed, so every
@@ -96,6 +102,159 @@ export class Rng {
       const u = this.uniform();
       if (u < 1 - 0.0331 * x * x * x * x) return d * v;
       if (Math.log(u) < 0.5 * x * x + d * (1 - v + Math.log(v))) return d * v;
+    }
+  }
+
+  /**
+   * Exponential with mean 1 by the ziggurat method (Marsaglia & Tsang 2000;
+   * tables in ziggurat-tables.ts): one 32-bit draw (8 bits choose the layer,
+   * 24 bits the position) and no logarithm for ~98.9 % of draws; the tail
+   * beyond r = 7.697 by r + Exp(1) (memoryless). A different stream from
+   * exponential(), which existing callers keep. About 4x faster here.
+   */
+  exponentialZiggurat(): number {
+    const a = this.nextUint32();
+    const j = a >>> 8;
+    if (j < ZE.k[a & 255]) return j * ZE.w[a & 255];
+    return this.exponentialRest(a);
+  }
+
+  /** exponentialZiggurat after a first draw `a` that missed its layer's rectangle (the rare path). */
+  private exponentialRest(a: number): number {
+    for (;;) {
+      const i = a & 255;
+      const j = a >>> 8;
+      if (j < ZE.k[i]) return j * ZE.w[i];
+      if (i === 0) return ZE.r - Math.log(1 - this.uniform());
+      const x = j * ZE.w[i];
+      if (ZE.f[i] + this.uniform() * (ZE.f[i - 1] - ZE.f[i]) < Math.exp(-x)) return x;
+      a = this.nextUint32();
+    }
+  }
+
+  /**
+   * Standard normal by the ziggurat method (Marsaglia & Tsang 2000): one
+   * 32-bit draw (7 bits layer, 1 bit sign, 24 bits position) for ~98.8 % of
+   * draws; tail beyond r = 3.443 by Marsaglia's exponential rejection. A
+   * different stream from normal().
+   */
+  normalZiggurat(): number {
+    const a = this.nextUint32();
+    const j = a >>> 8;
+    if (j < ZN.k[a & 127]) return (a & 128 ? -j : j) * ZN.w[a & 127];
+    return this.normalRest(a);
+  }
+
+  /** normalZiggurat after a first draw `a` that missed its layer's rectangle (the rare path). */
+  private normalRest(a: number): number {
+    for (;;) {
+      const i = a & 127;
+      const s = a & 128 ? -1 : 1;
+      const j = a >>> 8;
+      if (j < ZN.k[i]) return (a & 128 ? -j : j) * ZN.w[i];
+      if (i === 0) {
+        let x: number;
+        let y: number;
+        do {
+          x = -Math.log(1 - this.uniform()) / ZN.r;
+          y = -Math.log(1 - this.uniform());
+        } while (y + y < x * x);
+        return s * (ZN.r + x);
+      }
+      const x = j * ZN.w[i];
+      if (ZN.f[i] + this.uniform() * (ZN.f[i - 1] - ZN.f[i]) < Math.exp(-0.5 * x * x)) return s * x;
+      a = this.nextUint32();
+    }
+  }
+
+  /**
+   * Gamma(shape, scale 1) by Marsaglia & Tsang (2000, ACM TOMS 26:363) on
+   * ziggurat normals; shape 1 is exponentialZiggurat(); shape < 1 by
+   * Gamma(shape + 1) x U^(1/shape) with U^(1/shape) = exp(-E / shape),
+   * E ~ Exp(1) (the same paper's boost). A different stream from gamma().
+   */
+  gammaZiggurat(shape: number): number {
+    if (shape === 1) return this.exponentialZiggurat();
+    const a = shape < 1 ? shape + 1 : shape;
+    const d = a - 1 / 3;
+    const g = this.marsagliaTsang(d, 1 / Math.sqrt(9 * d));
+    return shape < 1 ? g * Math.exp(-this.exponentialZiggurat() / shape) : g;
+  }
+
+  /**
+   * Fills `out` with gammaZiggurat(shape) draws, in order (the same numbers as
+   * out.length calls): the loop runs inside the generator, so no draw is
+   * boxed on its way to the caller (a simulation's hot loop reads them from
+   * the array).
+   */
+  fillGammaZiggurat(out: Float64Array, shape: number): void {
+    // The fast paths of exponentialZiggurat, normalZiggurat and marsagliaTsang written
+    // out here (no double crosses a call on ~99 % of draws); the same draws in the same
+    // order as gammaZiggurat (test/core/random/ziggurat.test.ts checks it).
+    const len = out.length;
+    if (shape === 1) {
+      for (let i = 0; i < len; i++) {
+        const a = this.nextUint32();
+        const j = a >>> 8;
+        out[i] = j < ZE.k[a & 255] ? j * ZE.w[a & 255] : this.exponentialRest(a);
+      }
+      return;
+    }
+    const small = shape < 1;
+    const d = (small ? shape + 1 : shape) - 1 / 3;
+    const c = 1 / Math.sqrt(9 * d);
+    for (let i = 0; i < len; i++) {
+      let g: number;
+      for (;;) {
+        let x: number;
+        let v: number;
+        do {
+          const a = this.nextUint32();
+          const j = a >>> 8;
+          x = j < ZN.k[a & 127] ? (a & 128 ? -j : j) * ZN.w[a & 127] : this.normalRest(a);
+          v = 1 + c * x;
+        } while (v <= 0);
+        v = v * v * v;
+        const u = this.uniform();
+        const x2 = x * x;
+        if (u < 1 - 0.0331 * x2 * x2 || Math.log(u) < 0.5 * x2 + d * (1 - v + Math.log(v))) {
+          g = d * v;
+          break;
+        }
+      }
+      if (small) {
+        const a = this.nextUint32();
+        const j = a >>> 8;
+        g *= Math.exp(-(j < ZE.k[a & 255] ? j * ZE.w[a & 255] : this.exponentialRest(a)) / shape);
+      }
+      out[i] = g;
+    }
+  }
+
+  /** Fills `out` with uniform() draws, in order (a loop inside the generator: nothing boxed). */
+  fillUniform(out: Float64Array): void {
+    for (let i = 0; i < out.length; i++) out[i] = this.uniform();
+  }
+
+  /** Fills `out` with normalZiggurat() draws, in order (a loop inside the generator: nothing boxed). */
+  fillNormalZiggurat(out: Float64Array): void {
+    for (let i = 0; i < out.length; i++) out[i] = this.normalZiggurat();
+  }
+
+  /** Marsaglia & Tsang's rejection step for Gamma(d + 1/3), c = 1 / sqrt(9 d). */
+  private marsagliaTsang(d: number, c: number): number {
+    for (;;) {
+      let x: number;
+      let v: number;
+      do {
+        x = this.normalZiggurat();
+        v = 1 + c * x;
+      } while (v <= 0);
+      v = v * v * v;
+      const u = this.uniform();
+      const x2 = x * x;
+      if (u < 1 - 0.0331 * x2 * x2) return d * v;
+      if (Math.log(u) < 0.5 * x2 + d * (1 - v + Math.log(v))) return d * v;
     }
   }
 

@@ -1,4 +1,4 @@
-import { kmeans } from 'ml-kmeans';
+import { lloydKMeans } from './lloyd-k-means';
 
 export interface KMeansFit {
   /** Cluster of each point, 0..k-1, numbered by decreasing cluster size (ties: first member first). */
@@ -15,7 +15,8 @@ export interface KMeansFit {
 }
 
 /**
- * k-means (Lloyd's algorithm with k-means++ starts, from ml-kmeans) run
+ * k-means (Lloyd's algorithm with k-means++ starts: lloydKMeans, the same
+ * labels as ml-kmeans 7.0.1 for the same seed, on typed arrays) run
  * `restarts` times with seeds seed, seed + 1, ...; the partition with the
  * smallest within-cluster sum of squares wins (a restart that leaves a
  * cluster empty is discarded). Labels are renumbered by decreasing size so
@@ -30,13 +31,11 @@ export interface KMeansFit {
 export function kMeansRestarts(points: ArrayLike<number>, dim: number, k: number, restarts = 10, seed = 1): KMeansFit {
   const n = Math.floor(points.length / dim);
   if (!(k >= 1 && k <= n)) throw new Error(`k-means needs 1 <= k <= n, got k = ${k}, n = ${n}`);
-  const rows: number[][] = [];
-  for (let i = 0; i < n; i++) rows.push(Array.from({ length: dim }, (_, t) => points[i * dim + t]));
+  const flat = points instanceof Float64Array ? points : Float64Array.from(points);
   let best: { labels: Int32Array; ss: number; seed: number } | null = null;
   for (let r = 0; r < restarts; r++) {
     const s = seed + r;
-    const res = kmeans(rows, k, { initialization: 'kmeans++', seed: s, maxIterations: 300, tolerance: 1e-12 });
-    const labels = Int32Array.from(res.clusters);
+    const labels = lloydKMeans(flat, dim, k, s, 300, 1e-12);
     const { ss, sizes } = withinSs(points, dim, labels, k);
     if (sizes.some((c) => c === 0)) continue;
     if (!best || ss < best.ss - 1e-12 * Math.abs(best.ss)) best = { labels, ss, seed: s };

@@ -12,6 +12,11 @@
  * for a few hundred doubles (measured by bench/classify-bench.ts's session),
  * several times this, and it cannot carry the index along.
  *
+ * Whole-number keys within a small range (at most 4 n + 256 values apart,
+ * e.g. counts, or the integer numerators of the ramp test's per-trial
+ * slopes) are sorted by counting instead: one pass to check and find the
+ * range, one to count, one to place (stable), O(n + range).
+ *
  * Edge cases: NaN keys are a caller bug (comparisons with NaN are false, so
  * they end up anywhere); -0 and +0 compare equal. Reference: Musser (1997),
  * "Introspective sorting and selection algorithms"; checked against
@@ -19,6 +24,7 @@
  * test/core/stats/sort-with-index.test.ts.
  */
 export function sortWithIndex(keys: Float64Array, index: Int32Array, from = 0, to = keys.length): void {
+  if (to - from >= 32 && countingSort(keys, index, from, to)) return;
   let depth = 0;
   for (let n = to - from; n > 1; n >>= 1) depth += 2;
   sortRange(keys, index, from, to - 1, depth);
@@ -95,4 +101,38 @@ function heapSort(a: Float64Array, ix: Int32Array, lo: number, hi: number): void
     swap(a, ix, lo, lo + end);
     sift(0, end);
   }
+}
+
+let counting = { count: new Int32Array(0), keys: new Float64Array(0), index: new Int32Array(0) };
+
+/** Counting sort of whole-number keys in a small range; false (nothing done) otherwise. */
+function countingSort(a: Float64Array, ix: Int32Array, from: number, to: number): boolean {
+  const n = to - from;
+  let min = Infinity;
+  let max = -Infinity;
+  for (let i = from; i < to; i++) {
+    const v = a[i];
+    if (!Number.isInteger(v)) return false; // NaN, infinities and fractions take the comparison sort
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  const range = max - min + 1;
+  if (!(range <= 4 * n + 256)) return false;
+  if (counting.count.length < range + 1 || counting.keys.length < n) {
+    counting = { count: new Int32Array(Math.max(range + 1, counting.count.length)), keys: new Float64Array(Math.max(n, counting.keys.length)), index: new Int32Array(Math.max(n, counting.index.length)) };
+  }
+  const { count, keys, index } = counting; // reused across calls (not re-entrant; nothing escapes)
+  count.fill(0, 0, range + 1);
+  for (let i = from; i < to; i++) count[a[i] - min + 1]++;
+  for (let r = 1; r <= range; r++) count[r] += count[r - 1]; // count[r] = first slot of value min + r
+  for (let i = from; i < to; i++) {
+    const slot = count[a[i] - min]++;
+    keys[slot] = a[i]; // the key itself, so -0 stays -0
+    index[slot] = ix[i];
+  }
+  for (let k = 0; k < n; k++) {
+    a[from + k] = keys[k];
+    ix[from + k] = index[k];
+  }
+  return true;
 }

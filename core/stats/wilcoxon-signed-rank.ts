@@ -1,5 +1,5 @@
 import { normalCdf } from './distributions';
-import { midRanks } from './mid-ranks';
+import { sortWithIndex } from './sort-with-index';
 
 export interface SignedRankResult {
   /** V = sum of the ranks of |d| over positive d (zeros dropped). */
@@ -40,22 +40,42 @@ export interface SignedRankResult {
  * section 3.1 and p. 29 example; checked against @stdlib/stats-wilcoxon.
  */
 export function wilcoxonSignedRank(d: ArrayLike<number>, exactMaxN = 50): SignedRankResult {
+  // |d| of the non-zero, non-NaN differences into reused buffers, with their
+  // signs; one sort, then mid-ranks run by run. V and the tie term are sums of
+  // half-integers and integers, exact in any order, so they equal the sums of
+  // midRanks' ranks over the positive differences.
+  if (buffers.abs.length < d.length) buffers = { abs: new Float64Array(2 * d.length), index: new Int32Array(2 * d.length), positive: new Uint8Array(2 * d.length), r2: new Int32Array(2 * d.length) };
+  const { abs, index, positive, r2 } = buffers; // reused across calls (not re-entrant; nothing escapes)
   let zeros = 0;
-  const nz: number[] = [];
+  let n = 0;
   for (let i = 0; i < d.length; i++) {
     const v = d[i];
     if (v === 0) zeros++;
-    else if (v === v) nz.push(v);
+    else if (v === v) {
+      abs[n] = Math.abs(v);
+      positive[n] = v > 0 ? 1 : 0;
+      index[n] = n;
+      n++;
+    }
   }
-  const n = nz.length;
   if (n === 0) {
     return { statistic: 0, n: 0, zeros, p: NaN, pGreater: NaN, pLess: NaN, direction: 0, method: 'exact' };
   }
-  const abs = new Float64Array(n);
-  for (let i = 0; i < n; i++) abs[i] = Math.abs(nz[i]);
-  const { ranks, tieSum } = midRanks(abs);
+  sortWithIndex(abs, index, 0, n);
   let v = 0;
-  for (let i = 0; i < n; i++) if (nz[i] > 0) v += ranks[i];
+  let tieSum = 0;
+  for (let i = 0; i < n; ) {
+    let j = i + 1;
+    while (j < n && abs[j] === abs[i]) j++;
+    const t = j - i;
+    if (t > 1) tieSum += t * t * t - t;
+    const rank = (i + 1 + j) / 2; // mean of ranks i+1 .. j
+    for (let k = i; k < j; k++) {
+      if (positive[index[k]]) v += rank;
+      r2[index[k]] = i + 1 + j; // doubled mid-rank, an integer
+    }
+    i = j;
+  }
   const mean = (n * (n + 1)) / 4;
   const direction = v > mean ? 1 : v < mean ? -1 : 0;
   let pLess: number;
@@ -64,12 +84,8 @@ export function wilcoxonSignedRank(d: ArrayLike<number>, exactMaxN = 50): Signed
   if (n <= exactMaxN) {
     method = 'exact';
     // Doubled mid-ranks are integers; count sign patterns by their doubled V.
-    const r2 = new Int32Array(n);
     let total = 0;
-    for (let i = 0; i < n; i++) {
-      r2[i] = Math.round(2 * ranks[i]);
-      total += r2[i];
-    }
+    for (let i = 0; i < n; i++) total += r2[i];
     // Frequencies as probabilities (each step halves), avoiding overflow of 2^n.
     let dist = new Float64Array(total + 1);
     dist[0] = 1;
@@ -115,3 +131,5 @@ export function wilcoxonSignedRank(d: ArrayLike<number>, exactMaxN = 50): Signed
   }
   return { statistic: v, n, zeros, p, pGreater, pLess, direction, method };
 }
+
+let buffers = { abs: new Float64Array(0), index: new Int32Array(0), positive: new Uint8Array(0), r2: new Int32Array(0) };

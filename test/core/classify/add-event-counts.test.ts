@@ -21,6 +21,20 @@ describe('addEventCounts', () => {
     }
     expect(out[0] + out[1] + out[2] + out[3] + out[17] + out[18] + out[19]).toBe(0);
   });
+  it('sums binCounts over events on a fast train with long gaps between events (windows found from a rate guess), in and out of order', () => {
+    const rng = new Rng(9);
+    const spikes = renewalTrain(rng, 80, 0, 400, 1);
+    for (const align of [Float64Array.from({ length: 60 }, (_, k) => 3 + 6.5 * k + rng.uniform()), Float64Array.from({ length: 60 }, () => 400 * rng.uniform())]) {
+      const m = binCounts(spikes, align, -3, 0.1, 30);
+      const out = new Float64Array(30);
+      addEventCounts(spikes, align, -3, 0.1, 30, out);
+      for (let j = 0; j < 30; j++) {
+        let s = 0;
+        for (let e = 0; e < align.length; e++) s += m[e * 30 + j];
+        expect(out[j]).toBe(s);
+      }
+    }
+  });
 });
 
 describe('rampCounts with a reused buffer', () => {

@@ -9,6 +9,8 @@ import { describe, expect, it } from 'vitest';
 import { binCounts } from '../../../core/align/bin-counts';
 import { rampUnit } from '../../../core/classify';
 import { rampUnitFromSpikes } from '../../../core/classify/ramp-unit-from-spikes';
+import { mannWhitney } from '../../../core/stats/mann-whitney';
+import { wilcoxonSignedRank } from '../../../core/stats/wilcoxon-signed-rank';
 import { Rng } from '../../../core/random/rng';
 
 function same(a: unknown, b: unknown, path = ''): void {
@@ -41,6 +43,25 @@ describe('rampUnitFromSpikes', () => {
       const dense = rampUnit(binCounts(st, align, -3, binS, nBins), align.length, centres, binS, 6, 30);
       const direct = rampUnitFromSpikes(st, align, -3, binS, centres, 6, 30);
       same(direct, dense, `rep ${rep}`);
+      // The rank tests on rankKeys (integer numerators) equal the tests on the slopes themselves.
+      expect(direct.rankKeys.every((w) => Number.isInteger(w))).toBe(true);
+      same(wilcoxonSignedRank(direct.rankKeys, 30), wilcoxonSignedRank(direct.trialSlopes, 30), `rep ${rep} signed-rank`);
+      const half = Math.floor(align.length / 2);
+      same(
+        mannWhitney(direct.rankKeys.subarray(0, half), direct.rankKeys.subarray(half)),
+        mannWhitney(direct.trialSlopes.subarray(0, half), direct.trialSlopes.subarray(half)),
+        `rep ${rep} rank-sum`,
+      );
+      // tests = false (the other conditions' slopes): the same slopes and rates, no GLM or signed-rank test.
+      const lite = rampUnitFromSpikes(st, align, -3, binS, centres, 6, 30, false);
+      const liteDense = rampUnit(binCounts(st, align, -3, binS, nBins), align.length, centres, binS, 6, 30, undefined, false);
+      same(lite, liteDense, `rep ${rep} (tests off)`);
+      for (const k of ['nTrials', 'meanRateHz', 'slopeHzPerS', 'slopeRelPerS', 'r2', 'lateEarlyRatio', 'trialSlopes', 'meanRate', 'semRate', 'interceptHz'] as const) {
+        same(lite[k], direct[k], `rep ${rep} ${k}`);
+      }
+      for (const k of ['p', 'statistic', 'glmSlopePerS', 'glmLrtP', 'glmDispersion'] as const) expect(lite[k]).toBeNaN();
+      expect(lite.direction).toBe(0);
+      expect(lite.nNonZero).toBe(0);
     }
   });
 });

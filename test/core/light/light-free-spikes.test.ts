@@ -62,6 +62,40 @@ describe('lightFreeSpikes', () => {
     expect(Math.abs(r.isiCv - cv) / cv).toBeLessThan(1e-9);
     expect(lightFreeSpikes(t, ivs, false).isiCv).toBe(r.isiCv);
   });
+  // The single forward walk (issue 9) against the naive filter, bit for bit: the CV formula of
+  // the doc (sums of d and d^2 in time order, then SD (n - 1) / mean) applied to the naive ISIs.
+  // Spikes exactly on interval starts and ends, ties, spikes only inside light, one spike.
+  it.each([4, 5])('bit for bit against the naive filter with spikes on every edge (seed %i)', (seed) => {
+    const rng = new Rng(seed);
+    const iv: number[] = [];
+    let x = 0.5;
+    while (x < 50) {
+      const a = x;
+      const b = a + 0.05 + rng.uniform() * 0.3;
+      iv.push(a, b);
+      x = b + (rng.uniform() < 0.2 ? 0 : 0.1 + rng.uniform()); // some intervals touch
+    }
+    const ivs = Float64Array.from(iv);
+    const t = Float64Array.from([...Array.from({ length: 800 }, () => rng.uniform() * 55), ...iv, ...iv.slice(0, 10)]).sort();
+    const cvOf = (isi: number[]) => {
+      let s = 0;
+      let s2 = 0;
+      for (const d of isi) {
+        s += d;
+        s2 += d * d;
+      }
+      const m = isi.length;
+      const mu = s / m;
+      return m >= 2 && mu > 0 ? Math.sqrt(Math.max(0, (s2 - m * mu * mu) / (m - 1))) / mu : NaN;
+    };
+    for (const train of [t, t.subarray(0, 1), Float64Array.from([iv[0], iv[2]]), new Float64Array(0)]) {
+      const r = lightFreeSpikes(train, ivs);
+      const ref = naive(train, ivs);
+      expect(Array.from(r.spikes)).toEqual(ref.free);
+      expect(r.isiCount).toBe(ref.isi.length);
+      expect(Object.is(r.isiCv, cvOf(ref.isi)) || r.isiCv === cvOf(ref.isi)).toBe(true);
+    }
+  });
   it('no intervals: all spikes; fewer than 2 ISIs: NaN CV', () => {
     expect(lightFreeSpikes(Float64Array.from([1, 2, 4]), new Float64Array(0)).isiCv).toBeCloseTo(Math.SQRT1_2 / 1.5, 12);
     expect(lightFreeSpikes(Float64Array.from([1, 2]), new Float64Array(0)).isiCv).toBeNaN();

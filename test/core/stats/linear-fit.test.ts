@@ -26,6 +26,12 @@ describe('linearFit', () => {
     // t = B1 / SD(B1) from the certified values; p is far below any threshold.
     close(f.slopeT, c.b1 / c.b1Sd, 1e-10);
     expect(f.slopeP).toBeLessThan(1e-80);
+    // Without the t distribution: every other field identical, slopeP NaN.
+    const g = linearFit(x, y, false);
+    for (const k of Object.keys(f) as (keyof typeof f)[]) {
+      if (k === 'slopeP') expect(g.slopeP).toBeNaN();
+      else expect(Object.is(g[k], f[k]), k).toBe(true);
+    }
   });
 
   it('handles edge cases: constant x, two points, constant y', () => {

@@ -28,6 +28,23 @@ describe('sortWithIndex', () => {
     }
   });
 
+  it('whole-number keys in a small range (the counting path): ordered, stable, index follows its key, -0 kept', () => {
+    for (const [n, spread, offset] of [[32, 5, 0], [200, 900, -450], [1000, 4256, 7], [500, 3, 2 ** 60], [64, 1e6, 0]] as const) {
+      const x = Float64Array.from({ length: n }, (_, i) => (i % 17 === 0 && offset === 0 ? -0 : offset + rng.int(spread) * (offset === 2 ** 60 ? 256 : 1)));
+      const keys = x.slice();
+      const index = Int32Array.from({ length: n }, (_, i) => i);
+      sortWithIndex(keys, index);
+      for (let i = 0; i < n; i++) expect(Object.is(keys[i], x[index[i]]), `n ${n} slot ${i}`).toBe(true);
+      const counted = keys[n - 1] - keys[0] + 1 <= 4 * n + 256; // the counting path, which is stable
+      if (spread < 1000) expect(counted).toBe(true);
+      for (let i = 1; i < n; i++) {
+        expect(keys[i - 1] <= keys[i]).toBe(true);
+        if (keys[i - 1] === keys[i] && counted) expect(index[i - 1]).toBeLessThan(index[i]);
+      }
+      expect(Array.from(index).sort((a, b) => a - b)).toEqual(Array.from({ length: n }, (_, i) => i));
+    }
+  });
+
   it('sorted, reversed, constant and organ-pipe inputs (the usual quicksort traps), and a sub-range', () => {
     const n = 3000;
     const inputs = [
