@@ -17,7 +17,7 @@ import { fileURLToPath } from 'node:url';
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
 /** Packages allowed in pure core: no DOM, no Node built-ins inside. */
-export const CORE_PACKAGES = ['ml-kmeans', 'ml-pca', 'simple-statistics'];
+export const CORE_PACKAGES = ['ml-pca', 'simple-statistics'];
 /** vite: loaded on demand by core/node/module-bundle.ts only, to bundle the CLI and worker modules when running from the TypeScript sources. */
 export const NODE_PACKAGES = [...CORE_PACKAGES, 'h5wasm', 'h5wasm/node', 'vite'];
 export const ELECTRON_PACKAGES = [...NODE_PACKAGES, 'electron', 'vite'];
