@@ -21,6 +21,7 @@
  * step on the calling thread ever needs a column made in the worker.
  */
 import { availableParallelism } from 'node:os';
+import type { Worker } from 'node:worker_threads';
 import type { Parameters } from '../defaults';
 import { InputError, type InputProblem } from '../errors';
 import type { Recording } from '../model/types';
@@ -54,6 +55,35 @@ export interface ThreadOptions {
   readonly steps?: readonly AnalysisStep[];
   /** Told the plan before the steps run (tests; a progress display). */
   readonly onPlan?: (plan: ThreadPlan) => void;
+  /** A worker started ahead (startSpareThread), used if the plan needs one, else ended. */
+  readonly spare?: SpareThread;
+}
+
+/**
+ * A worker thread for analyseRecordingThreads started ahead of need, e.g.
+ * before the session is imported, so that its start (~0.1 s) overlaps the
+ * import on the other CPU. It never keeps the process alive (unref); pass it
+ * to analyseRecordingThreads, and close() it when done either way (close is
+ * idempotent and also ends a worker that was never used).
+ */
+export interface SpareThread {
+  readonly worker: Promise<Worker | null>;
+  close(): Promise<void>;
+}
+
+export function startSpareThread(): SpareThread {
+  const worker = startWorkerThread('core/node/run-steps-worker').then(
+    (w) => {
+      w.unref();
+      return w;
+    },
+    () => null,
+  );
+  let closed: Promise<void> | null = null;
+  return {
+    worker,
+    close: () => (closed ??= worker.then(async (w) => void (await w?.terminate()))),
+  };
 }
 
 /** Which steps go to the worker (none: one thread) and why. */
@@ -88,8 +118,11 @@ export async function analyseRecordingThreads(recording: Recording, parameters: 
   const plan = planThreads(recording, steps, opts.threads ?? availableParallelism(), opts.minSpikes ?? 2_000_000);
   opts.onPlan?.(plan);
   const { moved } = plan;
-  if (moved.length === 0) return analyseRecording(recording, parameters, steps);
-  const worker = await startWorkerThread('core/node/run-steps-worker');
+  if (moved.length === 0) {
+    await opts.spare?.close();
+    return analyseRecording(recording, parameters, steps);
+  }
+  const worker = (await opts.spare?.worker) ?? (await startWorkerThread('core/node/run-steps-worker'));
   try {
     const reply = new Promise<StepsReply>((resolve, reject) => {
       worker.once('message', resolve);

@@ -1,10 +1,11 @@
 import { readFileSync, existsSync, statSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
 import { basename, resolve } from 'node:path';
 import { InputError } from '../../errors';
 import { buildRunRecord } from '../../export/build-run-record';
 import { resolveParameters } from '../../resolve-parameters';
 import { formatDelimited } from '../../table/format-delimited';
-import { analyseRecordingThreads } from '../analyse-recording-threads';
+import { analyseRecordingThreads, startSpareThread } from '../analyse-recording-threads';
 import { loadSession } from '../load-session';
 import { parseCliArgs } from '../parse-cli-args';
 import { toolVersion } from '../tool-version';
@@ -63,9 +64,18 @@ export const runCommand: Command = {
         throw new InputError({ file: basename(cfg), problem: `not valid JSON (${(e as Error).message})` });
       }
     }
-    const imported = await loadSession(session, { parameterSources: extra, sharedMemory: true });
-    const parameters = resolveParameters(imported.parameterSources);
-    const analysis = await analyseRecordingThreads(imported.recording, parameters, { threads });
+    // Large sessions analyse on two threads: start the second now, so its start overlaps the import.
+    const spare = (threads ?? availableParallelism()) > 1 ? startSpareThread() : undefined;
+    let imported: Awaited<ReturnType<typeof loadSession>>;
+    let parameters: ReturnType<typeof resolveParameters>;
+    let analysis: Awaited<ReturnType<typeof analyseRecordingThreads>>;
+    try {
+      imported = await loadSession(session, { parameterSources: extra, sharedMemory: true });
+      parameters = resolveParameters(imported.parameterSources);
+      analysis = await analyseRecordingThreads(imported.recording, parameters, { threads, spare });
+    } finally {
+      await spare?.close();
+    }
     const rec = imported.recording;
     const warnings = [...imported.warnings, ...analysis.warnings];
     const runJson = buildRunRecord({

@@ -2,7 +2,7 @@
 // data, joined in list order), on the bundled demo session, with a real worker thread.
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { analyseRecordingThreads, planThreads } from '../../../core/node/analyse-recording-threads';
+import { analyseRecordingThreads, planThreads, startSpareThread } from '../../../core/node/analyse-recording-threads';
 import { loadSession } from '../../../core/node/load-session';
 import { startWorkerThread } from '../../../core/node/start-worker-thread';
 import { isInputError } from '../../../core/errors';
@@ -51,6 +51,28 @@ describe('analyseRecordingThreads', () => {
     expect(isInputError(two)).toBe(true);
     expect((two as Error).message).toBe((one as Error).message);
     expect((two as Error).message).toContain('ramp.progressVariable');
+  }, 120_000);
+
+  it('uses a spare thread started ahead, and ends a spare it does not need', async () => {
+    const imported = await loadSession(DEMO, { sharedMemory: true });
+    const p = resolveParameters(imported.parameterSources);
+    const one = analyseRecording(imported.recording, p);
+    const used = startSpareThread();
+    const w = await used.worker;
+    expect(w).not.toBeNull();
+    let exited = false;
+    w!.once('exit', () => (exited = true));
+    const two = await analyseRecordingThreads(imported.recording, p, { threads: 2, minSpikes: 0, spare: used });
+    expect(formatDelimited(two.table)).toBe(formatDelimited(one.table));
+    expect(exited).toBe(true); // analyseRecordingThreads ended it
+    await used.close(); // idempotent
+    const unused = startSpareThread();
+    const u = await unused.worker;
+    let unusedExited = false;
+    u!.once('exit', () => (unusedExited = true));
+    const seq = await analyseRecordingThreads(imported.recording, p, { threads: 1, spare: unused });
+    expect(formatDelimited(seq.table)).toBe(formatDelimited(one.table));
+    expect(unusedExited).toBe(true);
   }, 120_000);
 
   it('the worker answers an unknown step with an error, not silence', async () => {
