@@ -34,8 +34,14 @@ import { spikePieces } from './spike-pieces';
 export interface ImportOptions {
   /** Further parameter sources applied after session.json's (e.g. --config). */
   readonly parameterSources?: readonly { file: string; overrides: unknown }[];
-  /** Hash factory (default: the pure SHA-256 of core; Node passes node:crypto's). */
-  readonly createHash?: () => Sha256;
+  /**
+   * Hash factory (default: the pure SHA-256 of core; Node passes node:crypto's),
+   * called with the name of the input file the hash is for. A factory may
+   * hash a file elsewhere (the CLI hashes large files on a second thread: its
+   * digestHex then returns a placeholder that the caller replaces,
+   * core/node/thread-hasher.ts).
+   */
+  readonly createHash?: (file: string) => Sha256;
   /**
    * Put the recording's spike times on one SharedArrayBuffer (see
    * buildRecording), so it can be posted to a worker thread without a copy.
@@ -79,8 +85,8 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     }
   };
   const readWhole = async (file: string): Promise<Uint8Array> => {
+    const h = makeHash(file); // before reading: a factory may note the file's state first
     const bytes = await source.readAll(file);
-    const h = makeHash();
     h.update(bytes);
     inputs.push({ file, bytes: bytes.length, sha256: h.digestHex() });
     return bytes;
@@ -93,7 +99,7 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
   };
   const readTable = async (file: string, columns: ColumnSpec[], keepExtra = false): Promise<DelimitedTable> => {
     const parser = createDelimitedParser({ file, columns, keepExtra });
-    const h = makeHash();
+    const h = makeHash(file);
     let size = 0;
     for await (const chunk of source.stream(file)) {
       h.update(chunk);
@@ -182,8 +188,8 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     const tRec = { file: spikeFile, bytes: 0, sha256: '' };
     const uRec = { file: unitsFile, bytes: 0, sha256: '' };
     inputs.push(tRec, uRec);
-    const tIn = { file: spikeFile, data: await randomAccess(spikeFile), hash: makeHash() };
-    const uIn = { file: unitsFile, data: await randomAccess(unitsFile), hash: makeHash() };
+    const tIn = { file: spikeFile, data: await randomAccess(spikeFile), hash: makeHash(spikeFile) };
+    const uIn = { file: unitsFile, data: await randomAccess(unitsFile), hash: makeHash(unitsFile) };
     opened.push(tIn.data, uIn.data);
     const npy = npySpikePieces(tIn, uIn, {
       timeFactor: (h) => {
@@ -390,7 +396,7 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     }
     const f = await source.openRandomAccess(R.file);
     raw = createRawSource(f, R);
-    const h = makeHash();
+    const h = makeHash(R.file);
     for await (const chunk of source.stream(R.file)) h.update(chunk);
     inputs.push({ file: R.file, bytes: f.size, sha256: h.digestHex() });
   }

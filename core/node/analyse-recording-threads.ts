@@ -125,7 +125,12 @@ export async function analyseRecordingThreads(recording: Recording, parameters: 
   const worker = (await opts.spare?.worker) ?? (await startWorkerThread('core/node/run-steps-worker'));
   try {
     const reply = new Promise<StepsReply>((resolve, reject) => {
-      worker.once('message', resolve);
+      const onMessage = (m: StepsReply | { kind: 'hash' }) => {
+        if ('kind' in m) return; // a late hash reply (thread-hasher.ts) is not the answer
+        worker.off('message', onMessage);
+        resolve(m);
+      };
+      worker.on('message', onMessage);
       worker.once('error', reject);
       worker.once('exit', (code) => reject(new Error(`the analysis thread stopped before answering (exit code ${code})`)));
     });

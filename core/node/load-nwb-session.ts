@@ -31,7 +31,7 @@ export async function loadNwbSession(path: string, section?: unknown, options: I
   } finally {
     h5.close();
   }
-  const hash = (options.createHash ?? nodeSha256)();
+  const hash = (options.createHash ?? nodeSha256)(file);
   await new Promise<void>((resolve, reject) => {
     createReadStream(path, { highWaterMark: 1 << 20 })
       .on('data', (chunk) => hash.update(chunk as Uint8Array))

@@ -10,7 +10,8 @@
  * In the folder case `inputs` lists session.json first, then the NWB file.
  *
  * Hashing: unless options.createHash is given, every input is hashed with
- * node:crypto (nodeSha256) from the bytes the importer reads, as it reads them.
+ * node:crypto (nodeSha256) from the bytes the importer reads, as it reads them;
+ * with options.hashWorker, large files of a folder on that thread instead.
  *
  * options.sharedMemory (default false): the recording's spike times sit on
  * one SharedArrayBuffer (folders and NWB files alike; see buildRecording), so
@@ -28,9 +29,22 @@ import { parseManifest } from '../io/parse-manifest';
 import { createFsSessionSource } from './create-fs-session-source';
 import { loadNwbSession } from './load-nwb-session';
 import { nodeSha256 } from './node-sha256';
+import { threadHasher } from './thread-hasher';
+import type { Worker } from 'node:worker_threads';
 
-export async function loadSession(path: string, options: ImportOptions = {}): Promise<ImportResult> {
-  const opts: ImportOptions = { createHash: nodeSha256, ...options };
+/** loadSession's options: the importer's, and a thread to hash large files of a session folder on. */
+export interface LoadOptions extends ImportOptions {
+  /**
+   * A worker running core/node/run-steps-worker.ts (e.g. startSpareThread's):
+   * files of at least 8 MiB in a session folder are hashed there while this
+   * thread imports them (thread-hasher.ts). NWB files are hashed here.
+   */
+  readonly hashWorker?: Worker;
+}
+
+export async function loadSession(path: string, options: LoadOptions = {}): Promise<ImportResult> {
+  const { hashWorker, ...importOptions } = options;
+  const opts: ImportOptions = { createHash: nodeSha256, ...importOptions };
   if (!existsSync(path)) {
     throw new InputError({ file: path, problem: 'no such file or folder', fix: 'give a session folder (spikes.csv, pulses.csv, ...) or an .nwb file' });
   }
@@ -57,10 +71,13 @@ export async function loadSession(path: string, options: ImportOptions = {}): Pr
       const r = await loadNwbSession(nwbPath, m.nwb, { ...opts, parameterSources: [...params, ...(opts.parameterSources ?? [])] });
       // session.json chose the file and may set parameters: it is an input too (size + SHA-256), and the
       // NWB file is named as session.json names it (relative to the folder)
-      const h = (opts.createHash ?? nodeSha256)();
+      const h = (opts.createHash ?? nodeSha256)(MANIFEST_FILE);
       h.update(manifestBytes);
       return { ...r, inputs: [{ file: MANIFEST_FILE, bytes: manifestBytes.length, sha256: h.digestHex() }, ...r.inputs.map((i) => ({ ...i, file: sec.file as string }))] };
     }
   }
-  return importSession(createFsSessionSource(path), opts);
+  if (!hashWorker) return importSession(createFsSessionSource(path), opts);
+  const hasher = threadHasher(path, hashWorker);
+  const r = await importSession(createFsSessionSource(path), { ...opts, createHash: (file) => hasher.createHash(file) });
+  return { ...r, inputs: await hasher.settle(r.inputs) };
 }

@@ -3,17 +3,51 @@
  * StepsRequest, runs the named steps of the run pipeline (STEPS) on the
  * recording, in list order, and posts one StepsReply: the steps' results, or
  * the error (an InputError's problem is sent as data, so the main thread
- * throws the same user-facing message).
+ * throws the same user-facing message). Before that, while the main thread
+ * imports, it may receive HashRequests (thread-hasher.ts): it hashes each
+ * file by path and posts a HashReply.
  */
+import { createHash } from 'node:crypto';
+import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import { parentPort } from 'node:worker_threads';
 import { isInputError } from '../errors';
 import { runSteps } from '../pipeline/run-steps';
 import { STEPS } from '../pipeline/steps';
 import type { StepsReply, StepsRequest } from './analyse-recording-threads';
+import type { HashReply, HashRequest } from './thread-hasher';
 
 const port = parentPort;
 if (!port) throw new Error('run-steps-worker.ts must run in a worker thread');
-port.on('message', (req: StepsRequest) => {
+
+let buffer: Buffer | null = null;
+function hashFile(req: HashRequest): HashReply {
+  let fd = -1;
+  try {
+    fd = openSync(req.path, 'r');
+    const mtimeBefore = fstatSync(fd).mtimeMs;
+    const h = createHash('sha256');
+    buffer ??= Buffer.allocUnsafe(4 * 1024 * 1024);
+    let bytes = 0;
+    for (;;) {
+      const n = readSync(fd, buffer, 0, buffer.length, bytes);
+      if (n === 0) break;
+      h.update(buffer.subarray(0, n));
+      bytes += n;
+    }
+    const mtimeAfter = fstatSync(fd).mtimeMs;
+    return { kind: 'hash', id: req.id, sha256: h.digest('hex'), bytes, mtimeBefore, mtimeAfter };
+  } catch (e) {
+    return { kind: 'hash', id: req.id, error: (e as Error).message };
+  } finally {
+    if (fd >= 0) closeSync(fd);
+  }
+}
+
+port.on('message', (req: StepsRequest | HashRequest) => {
+  if ('kind' in req) {
+    port.postMessage(hashFile(req));
+    return;
+  }
   let reply: StepsReply;
   try {
     const steps = req.steps.map((name) => {

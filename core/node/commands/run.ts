@@ -70,7 +70,9 @@ export const runCommand: Command = {
     let parameters: ReturnType<typeof resolveParameters>;
     let analysis: Awaited<ReturnType<typeof analyseRecordingThreads>>;
     try {
-      imported = await loadSession(session, { parameterSources: extra, sharedMemory: true });
+      // The second thread hashes the large input files while this one imports them.
+      const hashWorker = (await spare?.worker) ?? undefined;
+      imported = await loadSession(session, { parameterSources: extra, sharedMemory: true, hashWorker });
       parameters = resolveParameters(imported.parameterSources);
       analysis = await analyseRecordingThreads(imported.recording, parameters, { threads, spare });
     } finally {
