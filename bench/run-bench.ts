@@ -39,6 +39,7 @@ import { resolveParameters } from '../core/resolve-parameters';
 import type { Column } from '../core/table/types';
 import type { Recording } from '../core/model/types';
 import { ensureBenchSession } from './bench-session';
+import { printTopFunctions, type CpuProfile } from './print-top-functions';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 const args = process.argv.slice(2);
@@ -156,7 +157,7 @@ async function main(): Promise<void> {
       const f = readdirSync(profDir).find((x) => x.endsWith('.cpuprofile'));
       if (f) {
         console.log(`\nCPU profile: ${join(profDir, f)} (open in Chrome DevTools > Performance)`);
-        printTopFunctions(join(profDir, f));
+        printTopFunctions(JSON.parse(readFileSync(join(profDir, f), 'utf8')) as CpuProfile);
       }
     }
   } finally {
@@ -179,27 +180,6 @@ async function main(): Promise<void> {
       if (r.status !== 0) console.log(`bench/${a} exited with code ${r.status} (its figures above are incomplete)`);
     }
   }
-}
-
-/** Top functions by self time from a .cpuprofile (V8's JSON format). */
-function printTopFunctions(file: string, top = 15): void {
-  const prof = JSON.parse(readFileSync(file, 'utf8')) as {
-    nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number } }[];
-    samples: number[];
-    timeDeltas: number[];
-  };
-  const byId = new Map(prof.nodes.map((n) => [n.id, n]));
-  const self = new Map<string, number>();
-  let total = 0;
-  prof.samples.forEach((id, i) => {
-    const n = byId.get(id)!;
-    const dt = prof.timeDeltas[i] ?? 0;
-    total += dt;
-    const key = `${n.callFrame.functionName || '(anonymous)'}  ${n.callFrame.url.replace(/^file:\/\//, '').replace(ROOT + '/', '')}:${n.callFrame.lineNumber + 1}`;
-    self.set(key, (self.get(key) ?? 0) + dt);
-  });
-  const rows = [...self].sort((a, b) => b[1] - a[1]).slice(0, top);
-  for (const [k, us] of rows) console.log(`  ${((100 * us) / total).toFixed(1).padStart(5)} %  ${(us / 1000).toFixed(0).padStart(7)} ms  ${k}`);
 }
 
 main().catch((e) => {

@@ -23,6 +23,7 @@ import { STEPS } from '../core/pipeline/steps';
 import { resolveParameters } from '../core/resolve-parameters';
 import type { Column } from '../core/table/types';
 import { ensureBenchSession } from './bench-session';
+import { printTopFunctions, type CpuProfile } from './print-top-functions';
 
 const args = process.argv.slice(2);
 const valueOf = (name: string): string | undefined => {
@@ -76,7 +77,7 @@ for (const name of wanted) {
       session.disconnect();
       mkdirSync(profileDir, { recursive: true });
       writeFileSync(join(profileDir, `${name}.cpuprofile`), JSON.stringify(profile));
-      printTop(profile as unknown as Profile);
+      printTopFunctions(profile as unknown as CpuProfile);
     }
     if (r === 0) {
       totalWall += wall;
@@ -93,26 +94,3 @@ for (const name of wanted) {
 }
 console.log(`${'together'.padEnd(13)} wall / CPU ${(totalWall / 1000).toFixed(3)} / ${(totalCpu / 1000).toFixed(3)} s (first runs)`);
 if (digestFile) writeFileSync(digestFile, JSON.stringify(digest, null, 1));
-
-interface Profile {
-  nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number } }[];
-  samples: number[];
-  timeDeltas: number[];
-}
-/** Top functions by self time of a V8 CPU profile. */
-function printTop(prof: Profile, top = 15): void {
-  const byId = new Map(prof.nodes.map((n) => [n.id, n]));
-  const self = new Map<string, number>();
-  let total = 0;
-  prof.samples.forEach((id, i) => {
-    const n = byId.get(id)!;
-    const dt = prof.timeDeltas[i] ?? 0;
-    total += dt;
-    const url = n.callFrame.url.replace(/^file:\/\//, '').replace(/^.*?\/(core|node_modules|bench)\//, '$1/');
-    const key = `${n.callFrame.functionName || '(anonymous)'}  ${url}`;
-    self.set(key, (self.get(key) ?? 0) + dt);
-  });
-  for (const [k, us] of [...self].sort((a, b) => b[1] - a[1]).slice(0, top)) {
-    console.log(`  ${((100 * us) / total).toFixed(1).padStart(5)} %  ${(us / 1000).toFixed(0).padStart(6)} ms  ${k}`);
-  }
-}
