@@ -11,11 +11,17 @@ import type { ImportResult } from '../io/import-result';
 import type { AnalysisResult } from '../pipeline/analyse-recording';
 import { resolveParameters } from '../resolve-parameters';
 import type { UnitTable } from '../table/types';
-import { analyseRecordingThreads } from './analyse-recording-threads';
+import { availableParallelism } from 'node:os';
+import type { Worker } from 'node:worker_threads';
+import { analyseRecordingThreads, startSpareThread, type SpareThread } from './analyse-recording-threads';
 import { loadSessionFile } from './session-store';
 
-/** Reads a session folder or NWB file into an ImportResult (the import area's loader). */
-export type ImportSource = (path: string) => Promise<ImportResult>;
+/**
+ * Reads a session folder or NWB file into an ImportResult (the import area's
+ * loader). `hashWorker`, when given, is a thread that may hash large input
+ * files meanwhile (loadSession's option of that name).
+ */
+export type ImportSource = (path: string, opts?: { readonly hashWorker?: Worker }) => Promise<ImportResult>;
 
 /** A session opened for export or report: analysed, with curation applied. */
 export interface OpenedSession {
@@ -52,10 +58,21 @@ export function isSessionFilePath(path: string): boolean {
  * mismatch is a notice (written to stderr, run.json and the report).
  */
 export async function openSession(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean } = {}): Promise<OpenedSession> {
+  // As in `run`: the analysis worker starts now, hashes large inputs during the import, then analyses.
+  const spare = availableParallelism() > 1 ? startSpareThread() : undefined;
+  try {
+    return await open(path, importSource, opts, spare);
+  } finally {
+    await spare?.close();
+  }
+}
+
+async function open(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean }, spare: SpareThread | undefined): Promise<OpenedSession> {
+  const hashWorker = (await spare?.worker) ?? undefined;
   if (!isSessionFilePath(path)) {
-    const imported = await importSource(path);
+    const imported = await importSource(path, { hashWorker });
     const parameters = resolveParameters(imported.parameterSources);
-    const analysis = await analyseRecordingThreads(imported.recording, parameters);
+    const analysis = await analyseRecordingThreads(imported.recording, parameters, { spare });
     const { table } = applyCuration(analysis.table, EMPTY_CURATION);
     return { sessionFile: null, source: path, imported, parameters, analysis, table, curation: EMPTY_CURATION, notices: [], mismatch: null, orphans: [] };
   }
@@ -63,7 +80,7 @@ export async function openSession(path: string, importSource: ImportSource, opts
   const notices: string[] = loaded.notice ? [loaded.notice] : [];
   const s = loaded.session;
   const source = isAbsolute(s.source) ? s.source : resolve(dirname(path), s.source);
-  const imported = await importSource(source);
+  const imported = await importSource(source, { hashWorker });
   const mismatch = compareInputs(s.inputs, imported.inputs);
   if (!mismatch.same) {
     const msg = describeInputMismatch(mismatch, basename(path));
@@ -72,7 +89,7 @@ export async function openSession(path: string, importSource: ImportSource, opts
     }
     notices.push(msg);
   }
-  const analysis = await analyseRecordingThreads(imported.recording, s.parameters);
+  const analysis = await analyseRecordingThreads(imported.recording, s.parameters, { spare });
   const { table, orphans } = applyCuration(analysis.table, s.curation);
   if (orphans.length) notices.push(`${basename(path)}: curation of ${orphans.length} unit(s) not in the recording was not applied: ${orphans.slice(0, 10).join(', ')}${orphans.length > 10 ? ', ...' : ''}.`);
   return { sessionFile: path, source, imported, parameters: s.parameters, analysis, table, curation: s.curation, notices, mismatch: mismatch.same ? null : mismatch, orphans };
