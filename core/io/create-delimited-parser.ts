@@ -113,6 +113,51 @@ const POW10 = Array.from({ length: 23 }, (_, i) => Number(`1e${i}`));
 /** Returned by the number scanner when the bytes are not a number. */
 const BAD = Symbol('bad');
 
+/** scanDecimalDigits' results: mantissa, significant digits taken, power of ten, 1 if any digit was seen. */
+const DEC = new Float64Array(4);
+
+/**
+ * Reads the digits of a decimal number from buf[p] (after its sign): the
+ * integer part, then after '.' (or ',' when `comma`) the fraction. Keeps up
+ * to 16 significant digits in DEC[0] (exact as a double when 15 or fewer),
+ * their count in DEC[1], the power of ten that scales them in DEC[2], and
+ * DEC[3] = 1 when any digit was seen; returns the position after the last
+ * digit. The record fast path and the general field path both read numbers
+ * with it, so both give the same values.
+ */
+function scanDecimalDigits(buf: Uint8Array, p: number, n: number, comma: boolean): number {
+  let mant = 0;
+  let digits = 0;
+  let exp = 0;
+  let saw = 0;
+  let ch = p < n ? buf[p] : -1;
+  while (ch >= 48 && ch <= 57) {
+    saw = 1;
+    if (digits < 16) {
+      if (mant !== 0 || ch !== 48) digits++;
+      mant = mant * 10 + (ch - 48);
+    } else exp++;
+    ch = ++p < n ? buf[p] : -1;
+  }
+  if (ch === 46 || (comma && ch === 44)) {
+    ch = ++p < n ? buf[p] : -1;
+    while (ch >= 48 && ch <= 57) {
+      saw = 1;
+      if (digits < 16) {
+        if (mant !== 0 || ch !== 48) digits++;
+        mant = mant * 10 + (ch - 48);
+        exp--;
+      }
+      ch = ++p < n ? buf[p] : -1;
+    }
+  }
+  DEC[0] = mant;
+  DEC[1] = digits;
+  DEC[2] = exp;
+  DEC[3] = saw;
+  return p;
+}
+
 export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
   const file = spec.file;
   let leftover: Uint8Array<ArrayBufferLike> | null = null;
@@ -225,31 +270,12 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
         neg = ch === 45;
         ch = ++p < n ? buf[p] : -1;
       }
-      let mant = 0;
-      let digits = 0;
-      let exp = 0;
-      let sawDigit = false;
-      while (ch >= 48 && ch <= 57) {
-        sawDigit = true;
-        if (digits < 16) {
-          if (mant !== 0 || ch !== 48) digits++;
-          mant = mant * 10 + (ch - 48);
-        } else exp++;
-        ch = ++p < n ? buf[p] : -1;
-      }
-      if (ch === 46) {
-        ch = ++p < n ? buf[p] : -1;
-        while (ch >= 48 && ch <= 57) {
-          sawDigit = true;
-          if (digits < 16) {
-            if (mant !== 0 || ch !== 48) digits++;
-            mant = mant * 10 + (ch - 48);
-            exp--;
-          }
-          ch = ++p < n ? buf[p] : -1;
-        }
-      }
-      if (!sawDigit || digits > 15 || exp < -22 || exp > 22) break;
+      p = scanDecimalDigits(buf, p, n, false);
+      ch = p < n ? buf[p] : -1;
+      const mant = DEC[0];
+      const digits = DEC[1];
+      const exp = DEC[2];
+      if (DEC[3] === 0 || digits > 15 || exp < -22 || exp > 22) break;
       // ---- end of record ----
       if (ch === CR) {
         if (p + 1 >= n || buf[p + 1] !== LF) break;
@@ -413,32 +439,12 @@ export function createDelimitedParser(spec: DelimitedSpec): DelimitedParser {
             neg = c === 45;
             p++;
           }
-          let mant = 0;
-          let digits = 0; // significant digits taken
-          let exp = 0;
-          let sawDigit = false;
+          p = scanDecimalDigits(buf, p, n, decimalComma);
           let ch = p < n ? buf[p] : -1;
-          while (ch >= 48 && ch <= 57) {
-            sawDigit = true;
-            if (digits < 16) {
-              if (mant !== 0 || ch !== 48) digits++;
-              mant = mant * 10 + (ch - 48);
-            } else exp++;
-            ch = ++p < n ? buf[p] : -1;
-          }
-          if (ch === 46 || (decimalComma && ch === 44)) {
-            ch = ++p < n ? buf[p] : -1;
-            while (ch >= 48 && ch <= 57) {
-              sawDigit = true;
-              if (digits < 16) {
-                if (mant !== 0 || ch !== 48) digits++;
-                mant = mant * 10 + (ch - 48);
-                exp--;
-              }
-              ch = ++p < n ? buf[p] : -1;
-            }
-          }
-          let ok = sawDigit;
+          const mant = DEC[0];
+          const digits = DEC[1]; // significant digits taken
+          let exp = DEC[2];
+          let ok = DEC[3] === 1;
           if (ok && (ch === 101 || ch === 69)) {
             ch = ++p < n ? buf[p] : -1;
             let eneg = false;
