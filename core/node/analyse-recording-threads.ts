@@ -64,14 +64,17 @@ export interface ThreadOptions {
  * before the session is imported, so that its start (~0.1 s) overlaps the
  * import on the other CPU. It never keeps the process alive (unref); pass it
  * to analyseRecordingThreads, and close() it when done either way (close is
- * idempotent and also ends a worker that was never used).
+ * idempotent and also ends a worker that was never used). Undefined (no
+ * thread started) when fewer than 2 threads are available (`threads`,
+ * default availableParallelism()).
  */
 export interface SpareThread {
   readonly worker: Promise<Worker | null>;
   close(): Promise<void>;
 }
 
-export function startSpareThread(): SpareThread {
+export function startSpareThread(threads: number = availableParallelism()): SpareThread | undefined {
+  if (threads < 2) return undefined;
   const worker = startWorkerThread('core/node/run-steps-worker').then(
     (w) => {
       w.unref();

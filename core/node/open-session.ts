@@ -11,7 +11,6 @@ import type { ImportResult } from '../io/import-result';
 import type { AnalysisResult } from '../pipeline/analyse-recording';
 import { resolveParameters } from '../resolve-parameters';
 import type { UnitTable } from '../table/types';
-import { availableParallelism } from 'node:os';
 import type { Worker } from 'node:worker_threads';
 import { analyseRecordingThreads, startSpareThread, type SpareThread } from './analyse-recording-threads';
 import { loadSessionFile } from './session-store';
@@ -59,7 +58,7 @@ export function isSessionFilePath(path: string): boolean {
  */
 export async function openSession(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean } = {}): Promise<OpenedSession> {
   // As in `run`: the analysis worker starts now, hashes large inputs during the import, then analyses.
-  const spare = availableParallelism() > 1 ? startSpareThread() : undefined;
+  const spare = startSpareThread();
   try {
     return await open(path, importSource, opts, spare);
   } finally {

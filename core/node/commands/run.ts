@@ -1,5 +1,4 @@
 import { readFileSync, existsSync, statSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
 import { basename, resolve } from 'node:path';
 import { InputError } from '../../errors';
 import { buildRunRecord } from '../../export/build-run-record';
@@ -65,7 +64,7 @@ export const runCommand: Command = {
       }
     }
     // Large sessions analyse on two threads: start the second now, so its start overlaps the import.
-    const spare = (threads ?? availableParallelism()) > 1 ? startSpareThread() : undefined;
+    const spare = startSpareThread(threads);
     let imported: Awaited<ReturnType<typeof loadSession>>;
     let parameters: ReturnType<typeof resolveParameters>;
     let analysis: Awaited<ReturnType<typeof analyseRecordingThreads>>;

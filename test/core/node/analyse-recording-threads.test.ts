@@ -57,7 +57,8 @@ describe('analyseRecordingThreads', () => {
     const imported = await loadSession(DEMO, { sharedMemory: true });
     const p = resolveParameters(imported.parameterSources);
     const one = analyseRecording(imported.recording, p);
-    const used = startSpareThread();
+    expect(startSpareThread(1)).toBeUndefined();
+    const used = startSpareThread(2)!;
     const w = await used.worker;
     expect(w).not.toBeNull();
     let exited = false;
@@ -66,7 +67,7 @@ describe('analyseRecordingThreads', () => {
     expect(formatDelimited(two.table)).toBe(formatDelimited(one.table));
     expect(exited).toBe(true); // analyseRecordingThreads ended it
     await used.close(); // idempotent
-    const unused = startSpareThread();
+    const unused = startSpareThread(2)!;
     const u = await unused.worker;
     let unusedExited = false;
     u!.once('exit', () => (unusedExited = true));
