@@ -116,6 +116,22 @@ export function planThreads(recording: Recording, steps: readonly AnalysisStep[]
   return { moved, reason: `${moved.map((s) => s.name).join(', ')} in a worker thread` };
 }
 
+/**
+ * Runs `work` with a spare thread started first (startSpareThread(threads)),
+ * handing it the thread to hash large inputs on during the import
+ * (loadSession's hashWorker) and to pass to analyseRecordingThreads; ends
+ * the thread afterwards, also when `work` throws. Without a second CPU both
+ * are undefined and everything runs on this thread.
+ */
+export async function withSpareThread<T>(threads: number | undefined, work: (t: { readonly spare?: SpareThread; readonly hashWorker?: Worker }) => Promise<T>): Promise<T> {
+  const spare = startSpareThread(threads);
+  try {
+    return await work({ spare, hashWorker: (await spare?.worker) ?? undefined });
+  } finally {
+    await spare?.close();
+  }
+}
+
 export async function analyseRecordingThreads(recording: Recording, parameters: Parameters, opts: ThreadOptions = {}): Promise<AnalysisResult> {
   const steps = opts.steps ?? STEPS;
   const plan = planThreads(recording, steps, opts.threads ?? availableParallelism(), opts.minSpikes ?? 2_000_000);

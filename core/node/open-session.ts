@@ -12,7 +12,7 @@ import type { AnalysisResult } from '../pipeline/analyse-recording';
 import { resolveParameters } from '../resolve-parameters';
 import type { UnitTable } from '../table/types';
 import type { Worker } from 'node:worker_threads';
-import { analyseRecordingThreads, startSpareThread, type SpareThread } from './analyse-recording-threads';
+import { analyseRecordingThreads, withSpareThread, type SpareThread } from './analyse-recording-threads';
 import { loadSessionFile } from './session-store';
 
 /**
@@ -58,16 +58,10 @@ export function isSessionFilePath(path: string): boolean {
  */
 export async function openSession(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean } = {}): Promise<OpenedSession> {
   // As in `run`: the analysis worker starts now, hashes large inputs during the import, then analyses.
-  const spare = startSpareThread();
-  try {
-    return await open(path, importSource, opts, spare);
-  } finally {
-    await spare?.close();
-  }
+  return withSpareThread(undefined, ({ spare, hashWorker }) => open(path, importSource, opts, spare, hashWorker));
 }
 
-async function open(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean }, spare: SpareThread | undefined): Promise<OpenedSession> {
-  const hashWorker = (await spare?.worker) ?? undefined;
+async function open(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean }, spare: SpareThread | undefined, hashWorker: Worker | undefined): Promise<OpenedSession> {
   if (!isSessionFilePath(path)) {
     const imported = await importSource(path, { hashWorker });
     const parameters = resolveParameters(imported.parameterSources);

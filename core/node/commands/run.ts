@@ -4,7 +4,7 @@ import { InputError } from '../../errors';
 import { buildRunRecord } from '../../export/build-run-record';
 import { resolveParameters } from '../../resolve-parameters';
 import { formatDelimited } from '../../table/format-delimited';
-import { analyseRecordingThreads, startSpareThread } from '../analyse-recording-threads';
+import { analyseRecordingThreads, withSpareThread } from '../analyse-recording-threads';
 import { loadSession } from '../load-session';
 import { parseCliArgs } from '../parse-cli-args';
 import { toolVersion } from '../tool-version';
@@ -63,20 +63,13 @@ export const runCommand: Command = {
         throw new InputError({ file: basename(cfg), problem: `not valid JSON (${(e as Error).message})` });
       }
     }
-    // Large sessions analyse on two threads: start the second now, so its start overlaps the import.
-    const spare = startSpareThread(threads);
-    let imported: Awaited<ReturnType<typeof loadSession>>;
-    let parameters: ReturnType<typeof resolveParameters>;
-    let analysis: Awaited<ReturnType<typeof analyseRecordingThreads>>;
-    try {
-      // The second thread hashes the large input files while this one imports them.
-      const hashWorker = (await spare?.worker) ?? undefined;
-      imported = await loadSession(session, { parameterSources: extra, sharedMemory: true, hashWorker });
-      parameters = resolveParameters(imported.parameterSources);
-      analysis = await analyseRecordingThreads(imported.recording, parameters, { threads, spare });
-    } finally {
-      await spare?.close();
-    }
+    // Large sessions analyse on two threads: the second starts now, hashes the large inputs while
+    // this one imports them, then takes its share of the steps.
+    const { imported, parameters, analysis } = await withSpareThread(threads, async ({ spare, hashWorker }) => {
+      const imported = await loadSession(session, { parameterSources: extra, sharedMemory: true, hashWorker });
+      const parameters = resolveParameters(imported.parameterSources);
+      return { imported, parameters, analysis: await analyseRecordingThreads(imported.recording, parameters, { threads, spare }) };
+    });
     const rec = imported.recording;
     const warnings = [...imported.warnings, ...analysis.warnings];
     const runJson = buildRunRecord({
