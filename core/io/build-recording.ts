@@ -45,6 +45,9 @@
  * thread without a copy (every unit's spikeTimes.buffer is then the same
  * SharedArrayBuffer). Off by default: browsers offer SharedArrayBuffer only
  * to cross-origin-isolated pages. The values are the same either way.
+ * options.onSharedSpikes: told that shared array before it is filled (see
+ * SharedSpikeMemory), e.g. to have another thread fault its pages in while
+ * this one fills it (core/node/fault-in-pages.ts).
  */
 import { InputError } from '../errors';
 import type { Events, Pulses, RawSource, Recording, Scalar, Trials, Unit, Warning } from '../model/types';
@@ -169,6 +172,21 @@ export const PLAUSIBLE_MEDIAN_RATE_HZ = 0.1;
 export interface BuildRecordingOptions {
   /** Allocate the one full-length spike array on a SharedArrayBuffer (default false). */
   readonly sharedMemory?: boolean;
+  /** Called once with the shared spike array just allocated, before it is filled (only with sharedMemory). */
+  readonly onSharedSpikes?: (memory: SharedSpikeMemory) => void;
+}
+
+/**
+ * The shared spike array as buildRecording fills it: the spikes of group g
+ * (one group per distinct unit id of the spike file) go to elements
+ * starts[g] .. starts[g + 1] - 1 of `buffer` (float64), in file order, so
+ * a time-sorted file fills every group's range from its start at the same
+ * pace. Only the elements' places are final; their values come later.
+ */
+export interface SharedSpikeMemory {
+  readonly buffer: SharedArrayBuffer;
+  /** Group starts, groups + 1 entries (the last is the spike count). */
+  readonly starts: Float64Array;
 }
 
 export function buildRecording(t: RecordingTables, options: BuildRecordingOptions = {}): { recording: Recording; warnings: Warning[] } {
@@ -211,6 +229,7 @@ export function buildRecording(t: RecordingTables, options: BuildRecordingOption
   const codeStart = new Float64Array(nCodes + 1);
   for (let c = 0; c < nCodes; c++) codeStart[c + 1] = codeStart[c] + codeCount[c];
   const all = options.sharedMemory ? new Float64Array(new SharedArrayBuffer(n * 8)) : new Float64Array(n);
+  if (options.onSharedSpikes && all.buffer instanceof SharedArrayBuffer) options.onSharedSpikes({ buffer: all.buffer, starts: codeStart.slice() });
   const small = n < 2 ** 31;
   const at = small ? Int32Array.from(codeStart.subarray(0, nCodes)) : codeStart.slice(0, nCodes);
   const dst = small ? new Int32Array(BLOCK) : new Float64Array(BLOCK);

@@ -16,7 +16,7 @@ import { DEFAULTS, type Parameters } from '../defaults';
 import { InputError } from '../errors';
 import type { Warning } from '../model/types';
 import { resolveParameters } from '../resolve-parameters';
-import { buildRecording, type EventColumns, type PulseColumns, type SpikeColumns, type TrialColumns, type UnitInfoColumns, type WaveformColumns } from './build-recording';
+import { buildRecording, type BuildRecordingOptions, type EventColumns, type PulseColumns, type SpikeColumns, type TrialColumns, type UnitInfoColumns, type WaveformColumns } from './build-recording';
 import { createDelimitedParser, type ColumnSpec, type DelimitedTable } from './create-delimited-parser';
 import { createRawSource } from './create-raw-source';
 import { createSha256, type Sha256 } from './create-sha256';
@@ -48,6 +48,8 @@ export interface ImportOptions {
    * Default false (browsers need cross-origin isolation for it).
    */
   readonly sharedMemory?: boolean;
+  /** buildRecording's onSharedSpikes: told the shared spike array before it is filled. */
+  readonly onSharedSpikes?: BuildRecordingOptions['onSharedSpikes'];
 }
 
 export const MANIFEST_FILE = 'session.json';
@@ -414,7 +416,7 @@ async function importFrom(source: SessionSource, options: ImportOptions, opened:
     ...(span ? { span } : {}),
     toleranceS: parameters.span.toleranceS,
     ...(raw ? { raw } : {}),
-  }, { sharedMemory: options.sharedMemory ?? false });
+  }, { sharedMemory: options.sharedMemory ?? false, onSharedSpikes: options.onSharedSpikes });
   finishSpikes();
   return {
     recording: built.recording,

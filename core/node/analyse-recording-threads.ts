@@ -118,15 +118,15 @@ export function planThreads(recording: Recording, steps: readonly AnalysisStep[]
 
 /**
  * Runs `work` with a spare thread started first (startSpareThread(threads)),
- * handing it the thread to hash large inputs on during the import
- * (loadSession's hashWorker) and to pass to analyseRecordingThreads; ends
+ * handing it the thread to help the import (loadSession's importHelper:
+ * hashing large inputs, faulting in the spike memory) and to pass to analyseRecordingThreads; ends
  * the thread afterwards, also when `work` throws. Without a second CPU both
  * are undefined and everything runs on this thread.
  */
-export async function withSpareThread<T>(threads: number | undefined, work: (t: { readonly spare?: SpareThread; readonly hashWorker?: Worker }) => Promise<T>): Promise<T> {
+export async function withSpareThread<T>(threads: number | undefined, work: (t: { readonly spare?: SpareThread; readonly importHelper?: Worker }) => Promise<T>): Promise<T> {
   const spare = startSpareThread(threads);
   try {
-    return await work({ spare, hashWorker: (await spare?.worker) ?? undefined });
+    return await work({ spare, importHelper: (await spare?.worker) ?? undefined });
   } finally {
     await spare?.close();
   }

@@ -11,7 +11,9 @@
  *
  * Hashing: unless options.createHash is given, every input is hashed with
  * node:crypto (nodeSha256) from the bytes the importer reads, as it reads them;
- * with options.hashWorker, large files of a folder on that thread instead.
+ * with options.importHelper, large files of a folder on that thread instead.
+ * That thread also faults in the pages of a folder's shared spike array
+ * while this one fills it (fault-in-pages.ts; with sharedMemory).
  *
  * options.sharedMemory (default false): the recording's spike times sit on
  * one SharedArrayBuffer (folders and NWB files alike; see buildRecording), so
@@ -27,6 +29,7 @@ import { importSession, MANIFEST_FILE, type ImportOptions } from '../io/import-s
 import type { ImportResult } from '../io/import-result';
 import { parseManifest } from '../io/parse-manifest';
 import { createFsSessionSource } from './create-fs-session-source';
+import { requestFaultIn } from './fault-in-pages';
 import { loadNwbSession } from './load-nwb-session';
 import { nodeSha256 } from './node-sha256';
 import { threadHasher } from './thread-hasher';
@@ -35,15 +38,17 @@ import type { Worker } from 'node:worker_threads';
 /** loadSession's options: the importer's, and a thread to hash large files of a session folder on. */
 export interface LoadOptions extends ImportOptions {
   /**
-   * A worker running core/node/run-steps-worker.ts (e.g. startSpareThread's):
-   * files of at least 8 MiB in a session folder are hashed there while this
-   * thread imports them (thread-hasher.ts). NWB files are hashed here.
+   * A worker running core/node/run-steps-worker.ts (e.g. startSpareThread's)
+   * that helps import a session folder: files of at least 8 MiB are hashed
+   * there while this thread reads them (thread-hasher.ts), and with
+   * sharedMemory it faults in the spike array's pages while this thread
+   * fills them (fault-in-pages.ts). NWB files are imported on this thread alone.
    */
-  readonly hashWorker?: Worker;
+  readonly importHelper?: Worker;
 }
 
 export async function loadSession(path: string, options: LoadOptions = {}): Promise<ImportResult> {
-  const { hashWorker, ...importOptions } = options;
+  const { importHelper, ...importOptions } = options;
   const opts: ImportOptions = { createHash: nodeSha256, ...importOptions };
   if (!existsSync(path)) {
     throw new InputError({ file: path, problem: 'no such file or folder', fix: 'give a session folder (spikes.csv, pulses.csv, ...) or an .nwb file' });
@@ -76,8 +81,15 @@ export async function loadSession(path: string, options: LoadOptions = {}): Prom
       return { ...r, inputs: [{ file: MANIFEST_FILE, bytes: manifestBytes.length, sha256: h.digestHex() }, ...r.inputs.map((i) => ({ ...i, file: sec.file as string }))] };
     }
   }
-  if (!hashWorker) return importSession(createFsSessionSource(path), opts);
-  const hasher = threadHasher(path, hashWorker);
-  const r = await importSession(createFsSessionSource(path), { ...opts, createHash: (file) => hasher.createHash(file) });
+  if (!importHelper) return importSession(createFsSessionSource(path), opts);
+  const hasher = threadHasher(path, importHelper);
+  const r = await importSession(createFsSessionSource(path), {
+    ...opts,
+    createHash: (file) => hasher.createHash(file),
+    onSharedSpikes: (memory) => {
+      requestFaultIn(importHelper, memory);
+      opts.onSharedSpikes?.(memory);
+    },
+  });
   return { ...r, inputs: await hasher.settle(r.inputs) };
 }

@@ -17,10 +17,11 @@ import { loadSessionFile } from './session-store';
 
 /**
  * Reads a session folder or NWB file into an ImportResult (the import area's
- * loader). `hashWorker`, when given, is a thread that may hash large input
- * files meanwhile (loadSession's option of that name).
+ * loader). `importHelper`, when given, is a thread that may help the import
+ * (hash large input files, fault in the spike memory: loadSession's option of
+ * that name).
  */
-export type ImportSource = (path: string, opts?: { readonly hashWorker?: Worker }) => Promise<ImportResult>;
+export type ImportSource = (path: string, opts?: { readonly importHelper?: Worker }) => Promise<ImportResult>;
 
 /** A session opened for export or report: analysed, with curation applied. */
 export interface OpenedSession {
@@ -58,12 +59,12 @@ export function isSessionFilePath(path: string): boolean {
  */
 export async function openSession(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean } = {}): Promise<OpenedSession> {
   // As in `run`: the analysis worker starts now, hashes large inputs during the import, then analyses.
-  return withSpareThread(undefined, ({ spare, hashWorker }) => open(path, importSource, opts, spare, hashWorker));
+  return withSpareThread(undefined, ({ spare, importHelper }) => open(path, importSource, opts, spare, importHelper));
 }
 
-async function open(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean }, spare: SpareThread | undefined, hashWorker: Worker | undefined): Promise<OpenedSession> {
+async function open(path: string, importSource: ImportSource, opts: { allowChangedInputs?: boolean }, spare: SpareThread | undefined, importHelper: Worker | undefined): Promise<OpenedSession> {
   if (!isSessionFilePath(path)) {
-    const imported = await importSource(path, { hashWorker });
+    const imported = await importSource(path, { importHelper });
     const parameters = resolveParameters(imported.parameterSources);
     const analysis = await analyseRecordingThreads(imported.recording, parameters, { spare });
     const { table } = applyCuration(analysis.table, EMPTY_CURATION);
@@ -73,7 +74,7 @@ async function open(path: string, importSource: ImportSource, opts: { allowChang
   const notices: string[] = loaded.notice ? [loaded.notice] : [];
   const s = loaded.session;
   const source = isAbsolute(s.source) ? s.source : resolve(dirname(path), s.source);
-  const imported = await importSource(source, { hashWorker });
+  const imported = await importSource(source, { importHelper });
   const mismatch = compareInputs(s.inputs, imported.inputs);
   if (!mismatch.same) {
     const msg = describeInputMismatch(mismatch, basename(path));

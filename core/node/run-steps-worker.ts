@@ -5,22 +5,29 @@
  * the error (an InputError's problem is sent as data, so the main thread
  * throws the same user-facing message). Before that, while the main thread
  * imports, it may receive HashRequests (thread-hasher.ts): it hashes each
- * file by path and posts a HashReply.
+ * file by path and posts a HashReply; and a FaultInRequest
+ * (fault-in-pages.ts): it faults in the pages of the spike array the
+ * importer is filling. That request goes first: the importer is waiting on
+ * those pages now, on the digests only at its end. So files are hashed in
+ * 4 MiB pieces, one per turn of the event loop, and a FaultInRequest that
+ * arrives meanwhile runs between two pieces.
  */
 import { createHash } from 'node:crypto';
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
+import { setImmediate as nextTurn } from 'node:timers/promises';
 import { parentPort } from 'node:worker_threads';
 import { isInputError } from '../errors';
 import { runSteps } from '../pipeline/run-steps';
 import { STEPS } from '../pipeline/steps';
 import type { StepsReply, StepsRequest } from './analyse-recording-threads';
+import { faultInPages, type FaultInRequest } from './fault-in-pages';
 import type { HashReply, HashRequest } from './thread-hasher';
 
 const port = parentPort;
 if (!port) throw new Error('run-steps-worker.ts must run in a worker thread');
 
 let buffer: Buffer | null = null;
-function hashFile(req: HashRequest): HashReply {
+async function hashFile(req: HashRequest): Promise<HashReply> {
   let fd = -1;
   try {
     fd = openSync(req.path, 'r');
@@ -33,6 +40,7 @@ function hashFile(req: HashRequest): HashReply {
       if (n === 0) break;
       h.update(buffer.subarray(0, n));
       bytes += n;
+      await nextTurn(); // lets a FaultInRequest in
     }
     const mtimeAfter = fstatSync(fd).mtimeMs;
     return { kind: 'hash', id: req.id, sha256: h.digest('hex'), bytes, mtimeBefore, mtimeAfter };
@@ -43,9 +51,28 @@ function hashFile(req: HashRequest): HashReply {
   }
 }
 
-port.on('message', (req: StepsRequest | HashRequest) => {
+// Files are hashed one at a time, in the order asked (they share `buffer`).
+const hashQueue: HashRequest[] = [];
+let hashing = false;
+async function hashQueued(): Promise<void> {
+  if (hashing) return;
+  hashing = true;
+  for (let req = hashQueue.shift(); req; req = hashQueue.shift()) port!.postMessage(await hashFile(req));
+  hashing = false;
+}
+
+port.on('message', (req: StepsRequest | HashRequest | FaultInRequest) => {
   if ('kind' in req) {
-    port.postMessage(hashFile(req));
+    if (req.kind === 'fault-in') {
+      try {
+        faultInPages(req);
+      } catch {
+        // only a head start: the importer takes the faults itself
+      }
+      return;
+    }
+    hashQueue.push(req);
+    void hashQueued();
     return;
   }
   let reply: StepsReply;

@@ -40,7 +40,7 @@ export function readPlotlySource(): string {
 /** The real dependencies: the import area's loader, package.json's version, the clock, the login name. */
 export function defaultSessionDeps(): SessionCommandDeps {
   return {
-    importSource: (path, o) => loadSession(path, { sharedMemory: true, hashWorker: o?.hashWorker }),
+    importSource: (path, o) => loadSession(path, { sharedMemory: true, importHelper: o?.importHelper }),
     toolVersion: toolVersion(),
     now: () => new Date(),
     user: loginName,

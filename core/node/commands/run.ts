@@ -65,8 +65,8 @@ export const runCommand: Command = {
     }
     // Large sessions analyse on two threads: the second starts now, hashes the large inputs while
     // this one imports them, then takes its share of the steps.
-    const { imported, parameters, analysis } = await withSpareThread(threads, async ({ spare, hashWorker }) => {
-      const imported = await loadSession(session, { parameterSources: extra, sharedMemory: true, hashWorker });
+    const { imported, parameters, analysis } = await withSpareThread(threads, async ({ spare, importHelper }) => {
+      const imported = await loadSession(session, { parameterSources: extra, sharedMemory: true, importHelper });
       const parameters = resolveParameters(imported.parameterSources);
       return { imported, parameters, analysis: await analyseRecordingThreads(imported.recording, parameters, { threads, spare }) };
     });

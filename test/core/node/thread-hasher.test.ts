@@ -28,7 +28,7 @@ describe('threadHasher', () => {
       const settled = await hasher.settle(r.inputs);
       expect(settled).toEqual(here.inputs);
       // and through loadSession's option (files under 8 MiB stay on this thread)
-      const viaOption = await loadSession(DEMO, { hashWorker: w });
+      const viaOption = await loadSession(DEMO, { importHelper: w });
       expect(viaOption.inputs).toEqual(here.inputs);
     } finally {
       await w.terminate();
