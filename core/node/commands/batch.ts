@@ -127,7 +127,7 @@ export const batchCommand: Command = {
     const results: BatchJobResult[] = [];
     const emit = (o: Record<string, unknown>) => io.stdout(`${JSON.stringify(o)}\n`);
     if (json) emit({ event: 'start', sessions: jobs.length, workers: nWorkers, out: outDir });
-    else if (!io.isTty) io.stdout(`tagbench batch: ${jobs.length} sessions, ${nWorkers || 'no'} worker thread${nWorkers === 1 ? '' : 's'}${nWorkers ? '' : ' (in process)'} -> ${outDir}\n`);
+    else if (!io.isTty) io.stdout(`tagbench batch: ${jobs.length} session${jobs.length === 1 ? '' : 's'}, ${nWorkers || 'no'} worker thread${nWorkers === 1 ? '' : 's'}${nWorkers ? '' : ' (in process)'} -> ${outDir}\n`);
 
     // Live state for the progress display.
     const slots: { name: string | null; stage: string; since: number; bytes: number }[] = Array.from({ length: Math.max(1, nWorkers) }, () => ({ name: null, stage: '', since: 0, bytes: 0 }));

@@ -127,11 +127,13 @@ describe('tagbench batch', () => {
   it('--force runs everything again; a changed --config counts as changed parameters', async () => {
     const r = await batch([join(dir, 'alpha'), join(dir, 'beta'), '--out', out, '--workers', '0', '--force']);
     expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^tagbench batch: 2 sessions, no worker threads \(in process\)/);
     expect(r.stdout).toMatch(/2 analysed, 0 unchanged/);
     const cfg = join(dir, 'config.json');
     writeFileSync(cfg, JSON.stringify({ ramp: { binS: 0.2 } }));
     const r2 = await batch([join(dir, 'beta'), '--out', out, '--workers', '0', '--config', cfg]);
     expect(r2.code, r2.stderr).toBe(0);
+    expect(r2.stdout).toMatch(/^tagbench batch: 1 session, no worker threads/);
     expect(r2.stdout).toMatch(/1 analysed, 0 unchanged/);
     const run = JSON.parse(readFileSync(join(out, 'sessions', 'beta', 'run.json'), 'utf8'));
     expect(run.parameters.ramp.binS).toBe(0.2);
