@@ -29,6 +29,7 @@ import type { Recording, Scalar, Warning } from '../../model/types';
 import { buildRecording, type EventColumns, type PulseColumns, type RecordingTables, type TrialColumns, type UnitInfoColumns, type WaveformColumns } from '../build-recording';
 import type { Hdf5File } from './hdf5-access';
 import { listNwbContents, type NwbContents } from './list-nwb-contents';
+import { observationGapWarning, observationGaps } from './observation-gaps';
 import type { NwbManifest, NwbPulseSeries, NwbPulseTable } from './parse-nwb-manifest';
 import { planNwbRoles, type NwbPlan } from './plan-nwb-roles';
 import { readIntervalTable, type IntervalTable } from './read-interval-table';
@@ -135,6 +136,7 @@ export function readNwbSession(h5: Hdf5File, file: string, options: NwbSessionOp
     }),
     meta,
   };
+  warnings.push(...observationGapWarning(observationGaps(recording), `${file} (${plan.units}/obs_intervals)`));
   return { recording, warnings, contents, plan };
 }
 

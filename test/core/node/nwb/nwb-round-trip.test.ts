@@ -52,4 +52,26 @@ describe('simulated session written as NWB', () => {
     expect(Object.keys(got.trials.covariates).sort()).toEqual(Object.keys(rec.trials.covariates).sort());
     for (const [k, v] of Object.entries(rec.trials.covariates)) expect(Array.from(got.trials.covariates[k] as ArrayLike<number>)).toEqual(Array.from(v as ArrayLike<number>));
   });
+
+  it('warns about units not observed during part of the light block or the task (obs_intervals)', async () => {
+    const sim = simulateSession({ ...demoScenario(31), units: demoScenario(31).units.slice(0, 4) });
+    const rec = sim.recording;
+    const firstPulse = rec.pulses.onset[0];
+    const t = rec.trials;
+    // unit 0 lost just before the light block; unit 1 missing trials 3 and 4 (a gap from the
+    // middle of trial 3 to the middle of trial 4); units 2 and 3 observed throughout
+    const mid = (k: number) => (t.start[k] + t.stop[k]) / 2;
+    const observed = [Float64Array.of(rec.span[0], firstPulse - 1), Float64Array.of(rec.span[0], mid(3), mid(4), rec.span[1])];
+    const withGaps = { ...rec, units: rec.units.map((u, i) => (observed[i] ? { ...u, observedIntervals: observed[i] } : u)) };
+    const file = join(dir, 'gaps.nwb');
+    await writeNwbFromRecording(withGaps, file);
+    const r = await loadNwbSession(file);
+    expect(r.warnings.map((w) => w.code)).toEqual(['partly-observed-units']);
+    const w = r.warnings[0];
+    expect(w.count).toBe(2);
+    // unit 0: every pulse, and the trials from the light block on (none: the light block ends the session)
+    const trialsAfter = Array.from(t.stop).filter((s) => s > firstPulse - 1).length;
+    expect(w.message).toContain(`2 unit(s) were not observed during part of the light block or task (obs_intervals: 1 miss laser pulses, ${trialsAfter ? 2 : 1} miss trials or events; e.g. unit ${rec.units[0].id}: ${rec.pulses.onset.length} pulses, ${trialsAfter} trials or events outside)`);
+    expect(w.file).toBe('gaps.nwb (/units/obs_intervals)');
+  });
 });

@@ -50,10 +50,18 @@ export async function writeNwbFromRecording(rec: Recording, path: string): Promi
     });
     u.create_dataset({ name: 'spike_times', data: times, dtype: '<d' });
     u.create_dataset({ name: 'spike_times_index', data: ends, dtype: '<Q' });
-    const obs = new Float64Array(2 * n);
-    for (let i = 0; i < n; i++) obs.set(rec.span, 2 * i);
-    u.create_dataset({ name: 'obs_intervals', data: obs, shape: [n, 2], dtype: '<d' });
-    u.create_dataset({ name: 'obs_intervals_index', data: BigUint64Array.from({ length: n }, (_, i) => BigInt(i + 1)), dtype: '<Q' });
+    // each unit's observedIntervals when it has them, else the span
+    const pairs = rec.units.map((x) => x.observedIntervals ?? Float64Array.from(rec.span));
+    const obs = new Float64Array(pairs.reduce((s, x) => s + x.length, 0));
+    const obsEnds = new BigUint64Array(n);
+    let o = 0;
+    pairs.forEach((x, i) => {
+      obs.set(x, o);
+      o += x.length;
+      obsEnds[i] = BigInt(o / 2);
+    });
+    u.create_dataset({ name: 'obs_intervals', data: obs, shape: [obs.length / 2, 2], dtype: '<d' });
+    u.create_dataset({ name: 'obs_intervals_index', data: obsEnds, dtype: '<Q' });
     const cols = ['spike_times', 'obs_intervals'];
     const metaKeys = [...new Set(rec.units.flatMap((x) => Object.keys(x.meta)))];
     for (const key of metaKeys) {
