@@ -1,4 +1,5 @@
 import { lowerBound } from '../../align/lower-bound';
+import { formatNumber } from '../../table/format-number';
 import { lightSchedule } from '../../light/light-schedule';
 import { BASE_LAYOUT, OKABE_ITO, type FigureSpec } from '../theme';
 import type { UnitFigure } from '../types';
@@ -63,7 +64,17 @@ export const lightRasterFigure: UnitFigure = {
         yaxis: { title: { text: 'pulse' }, autorange: 'reversed' },
         shapes,
         annotations: [
-          { xref: 'x', yref: 'paper', x: (p.windowStartMs + p.windowEndMs) / 2, y: 1.06, text: 'test window', showarrow: false },
+          // a key at the top right, clear of the pulse bar and the title
+          {
+            xref: 'x',
+            yref: 'paper',
+            x: AFTER_MS,
+            xanchor: 'right',
+            y: 1,
+            yanchor: 'bottom',
+            text: Number.isFinite(dMs) ? `bar: light pulse (${formatNumber(dMs, 3)} ms) · shaded: test window` : 'shaded: test window',
+            showarrow: false,
+          },
         ],
       },
     };

@@ -38,6 +38,9 @@ describe('light figures', () => {
     expect(Math.max(...xs)).toBeLessThan(40);
     const shapes = f.layout.shapes as { x0: number; x1: number }[];
     expect([shapes[0].x0, shapes[0].x1]).toEqual([0, 10]);
+    // the pulse bar spans the pulses' duration (5 ms, makePulses' default), and the key says what bar and shading are
+    expect([shapes[1].x0, shapes[1].x1]).toEqual([0, 5]);
+    expect((f.layout.annotations as { text: string }[])[0].text).toBe('bar: light pulse (5 ms) · shaded: test window');
     expect(JSON.parse(JSON.stringify(f))).toEqual(f);
   });
   it('latency histogram: bars add up to the reliability', () => {
