@@ -14,6 +14,8 @@ export interface JumpKindResult {
   readonly nEvents: number;
   /** Events that got a matched control (a trial and reference trials covering their windows). */
   readonly nControlled: number;
+  /** Reference samples the rank-sum test compares the events with (0: signed-rank, no control). */
+  readonly nReferenceSamples: number;
   readonly units: JumpUnitResult[];
   readonly q: Float64Array;
   /** excited | suppressed | none. */
@@ -42,11 +44,20 @@ export interface JumpClassification {
  * - matched control: reference trials = trials of controlCondition holding no
  *   jump event; for each jump, the change the reference trials show over the
  *   same windows at the same time-in-trial (jump time - its trial's start) is
- *   subtracted from the jump's change (1 ms grid). Jumps outside any trial, or
- *   when there are no reference trials, are not controlled (their change is
- *   used as is; the count is in the summary);
- * - two-sided signed-rank across events, BH across units per kind; verdict
- *   excited / suppressed when q < alpha, else none;
+ *   subtracted from the jump's change (1 ms grid) for the effect sizes
+ *   (delta, late delta, PSTH). Jumps outside any trial, or when there are no
+ *   reference trials, are not controlled (their change is used as is; the
+ *   count is in the summary);
+ * - test (jumpUnit): each reference trial lends one sample, its changes over
+ *   the windows at the time-in-trial of one of the kind's controlled jumps
+ *   (reference trial r takes jump r mod n in event order, or the next one its
+ *   length covers; a trial covering none lends nothing), so the samples have
+ *   the jumps' time-in-trial distribution; the events' changes are compared
+ *   with them by a two-sided rank-sum test (without samples: signed-rank of
+ *   the events' changes). BH across units per kind; verdict excited /
+ *   suppressed when q < alpha and the test's direction agrees with the sign of
+ *   the controlled mean change (delta), else none (a disagreement is said in
+ *   the reason);
  * - shape of an answer: "step" when the late change is significant in the
  *   same direction and not significantly smaller than the answer; "partial"
  *   when it is significant but smaller; "transient" when the answer decays
@@ -90,6 +101,26 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
 
   const kindNames = [...new Set(all.kinds)].sort();
   const groups = kindNames.map((k) => all.kinds.flatMap((kk, i) => (kk === k ? [i] : [])));
+  // Reference samples of each kind: reference trial r at the time-in-trial of jump r mod n (or
+  // the next jump whose windows the trial covers), as an absolute time.
+  const reach0 = Math.min(params.preStartS, params.postStartS, params.lateStartS);
+  const reach1 = Math.max(params.preEndS, params.postEndS, params.lateEndS);
+  const refTimes = groups.map((idx) => {
+    const taus = idx.map((i) => tau[i]).filter((v) => v === v && v + reach0 >= 0);
+    const out: number[] = [];
+    if (taus.length === 0) return Float64Array.of();
+    for (let r = 0; r < refStarts.length; r++) {
+      const len = refStops[r] - refStarts[r];
+      for (let k = 0; k < taus.length; k++) {
+        const ta = taus[(r + k) % taus.length];
+        if (ta + reach1 <= len) {
+          out.push(refStarts[r] + ta);
+          break;
+        }
+      }
+    }
+    return Float64Array.from(out);
+  });
   const nUnits = recording.units.length;
   const perKindUnits: JumpUnitResult[][] = kindNames.map(() => []);
   const controlledCount = new Array<number>(kindNames.length).fill(0);
@@ -99,11 +130,12 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
 
   // Buffers reused across units (jumpUnit keeps only the PSTH, which is new per unit).
   const scratch: ReferenceProfileScratch = { count: new Float64Array(0), cover: new Float64Array(0), integral: new Float64Array(0) };
-  const buffers = groups.map((idx) => {
+  const buffers = groups.map((idx, g) => {
     const n = idx.length;
     return {
       pre: new Float64Array(n), post: new Float64Array(n), late: new Float64Array(n),
       cPost: new Float64Array(n), cLate: new Float64Array(n), size: Float64Array.from(idx, (i) => sizeAll[i]),
+      refPre: new Float64Array(refTimes[g].length), refPost: new Float64Array(refTimes[g].length), refLate: new Float64Array(refTimes[g].length),
     };
   });
   const counts = new Float64Array(nPsth);
@@ -119,7 +151,16 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
     for (let g = 0; g < groups.length; g++) {
       const idx = groups[g];
       const n = idx.length;
-      const { pre, post, late, cPost, cLate, size } = buffers[g];
+      const { pre, post, late, cPost, cLate, size, refPre, refPost, refLate } = buffers[g];
+      // the reference samples' window rates (no PSTH: nBins 0)
+      const rt = refTimes[g];
+      let rh = 0;
+      for (let k = 0; k < rt.length; k++) {
+        rh = eventWindowCounts(st, rt[k], edges, inWindows, psthStartS, binS, 0, counts, rh, rateHz);
+        refPre[k] = inWindows[0] / preLen;
+        refPost[k] = inWindows[1] / postLen;
+        refLate[k] = inWindows[2] / lateLen;
+      }
       cPost.fill(0);
       cLate.fill(0);
       const psth = new Float64Array(nPsth);
@@ -149,7 +190,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
       }
       for (let j = 0; j < nPsth; j++) psth[j] += counts[j] / (binS * n);
       if (u === 0) controlledCount[g] = controlled;
-      perKindUnits[g].push(jumpUnit({ pre, post, late, controlPost: cPost, controlLate: cLate, psth, psthStartS, binS, size }, params, jumpOpts));
+      perKindUnits[g].push(jumpUnit({ pre, post, late, controlPost: cPost, controlLate: cLate, refPre, refPost, refLate, psth, psthStartS, binS, size }, params, jumpOpts));
     }
   }
 
@@ -167,7 +208,16 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
         reason.push(r.nEvents < params.minEvents ? `only ${r.nEvents} events (fewer than ${params.minEvents})` : 'no spikes around the events');
         return;
       }
-      const stats = `signed-rank on ${r.nEvents} events p ${formatP(r.p)}, q ${formatP(q[u])}`;
+      const stats =
+        r.test === 'rank-sum'
+          ? `rank-sum of ${r.nEvents} events vs ${r.nReference} reference-trial samples p ${formatP(r.p)}, q ${formatP(q[u])}`
+          : `signed-rank on ${r.nEvents} events (no matched control) p ${formatP(r.p)}, q ${formatP(q[u])}`;
+      if (q[u] < a && r.direction !== 0 && r.direction !== Math.sign(r.deltaHz)) {
+        verdict.push('none');
+        shape.push('');
+        reason.push(`${stats} < ${a}, but the ranks point ${r.direction > 0 ? 'up' : 'down'} while the controlled mean change is ${r.deltaHz >= 0 ? '+' : ''}${r.deltaHz.toPrecision(3)} Hz: no call`);
+        return;
+      }
       if (q[u] < a && r.direction !== 0) {
         const up = r.direction > 0;
         verdict.push(up ? 'excited' : 'suppressed');
@@ -185,7 +235,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
       }
     });
     const hasSize = groups[g].some((i) => sizeAll[i] === sizeAll[i]);
-    return { kind, nEvents: groups[g].length, nControlled: controlledCount[g], units, q, verdict, shape, reason, hasSize };
+    return { kind, nEvents: groups[g].length, nControlled: controlledCount[g], nReferenceSamples: refTimes[g].length, units, q, verdict, shape, reason, hasSize };
   });
   return { kinds, nReferenceTrials: refStarts.length, note: all.note, psthStartS, psthBinS: binS };
 }

@@ -31,7 +31,7 @@ export const jumpStep: AnalysisStep = {
       columns.push(
         { name: `jump_${K}`, kind: 'string', values: k.verdict, description: `Answer to "${k.kind || jp.event}" jumps: excited, suppressed or none (BH q < ${jp.alpha})` },
         num('delta_hz', 'Mean change after the jump, [post) minus [pre), minus the matched control change, Hz', (i) => k.units[i].deltaHz),
-        num('p', 'Two-sided Wilcoxon signed-rank p of the per-jump controlled changes', (i) => k.units[i].p),
+        num('p', 'Two-sided p of the answer: rank-sum (Mann-Whitney) of the per-jump changes against reference-trial changes at the jumps\' times-in-trial; signed-rank of the per-jump changes when there is no matched control', (i) => k.units[i].p),
         num('q', 'Benjamini-Hochberg adjustment across units (this kind)', (i) => k.q[i]),
         { name: `jump_${K}_reason`, kind: 'string', values: k.reason, description: 'Why the jump verdict was given' },
         { name: `jump_${K}_shape`, kind: 'string', values: k.shape, description: 'transient, partial, step or unclear (empty when none)' },
@@ -63,6 +63,8 @@ export const jumpStep: AnalysisStep = {
           kind: k.kind,
           events: k.nEvents,
           controlledEvents: k.nControlled,
+          referenceSamples: k.nReferenceSamples,
+          test: k.nReferenceSamples > 0 ? 'rank-sum against reference-trial samples' : 'signed-rank, no matched control',
           excited: k.verdict.filter((v) => v === 'excited').length,
           suppressed: k.verdict.filter((v) => v === 'suppressed').length,
           none: k.verdict.filter((v) => v === 'none').length,
@@ -71,7 +73,7 @@ export const jumpStep: AnalysisStep = {
       warnings: r.kinds.some((k) => k.nControlled < k.nEvents)
         ? [{
             code: 'jump-uncontrolled',
-            message: 'Some jumps had no matched control (no trial, no reference trials, or reference trials too short); their changes are used without control.',
+            message: `${r.kinds.reduce((s, k) => s + k.nEvents - k.nControlled, 0)} jumps had no matched control (no trial, no reference trials, or reference trials too short); their changes are used without control.`,
             count: r.kinds.reduce((s, k) => s + k.nEvents - k.nControlled, 0),
           }]
         : [],
