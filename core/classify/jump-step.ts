@@ -50,6 +50,7 @@ export const jumpStep: AnalysisStep = {
         );
       }
     }
+    const uncontrolled = r.kinds.reduce((s, k) => s + k.nEvents - k.nControlled, 0);
     return {
       columns,
       summary: {
@@ -70,13 +71,23 @@ export const jumpStep: AnalysisStep = {
           none: k.verdict.filter((v) => v === 'none').length,
         })),
       },
-      warnings: r.kinds.some((k) => k.nControlled < k.nEvents)
-        ? [{
-            code: 'jump-uncontrolled',
-            message: `${r.kinds.reduce((s, k) => s + k.nEvents - k.nControlled, 0)} jumps had no matched control (no trial, no reference trials, or reference trials too short); their changes are used without control.`,
-            count: r.kinds.reduce((s, k) => s + k.nEvents - k.nControlled, 0),
-          }]
-        : [],
+      warnings: [
+        ...(uncontrolled > 0
+          ? [{
+              code: 'jump-uncontrolled',
+              message: `${uncontrolled} jump${uncontrolled === 1 ? '' : 's'} had no matched control (no trial, no reference trials, or reference trials too short); their changes are used without control.`,
+              count: uncontrolled,
+            }]
+          : []),
+        // Some jump events carry a kind and some do not: the unkinded ones form their own group "all".
+        ...(r.kinds.length > 1 && r.kinds.some((k) => k.kind === '')
+          ? [{
+              code: 'jump-kind-missing',
+              message: `${r.kinds.find((k) => k.kind === '')!.nEvents} "${jp.event}" events have no kind while the others do; they are analysed as their own group (columns jump_all_*). Give every jump its kind in events.csv.`,
+              count: r.kinds.find((k) => k.kind === '')!.nEvents,
+            }]
+          : []),
+      ],
     };
   },
 };

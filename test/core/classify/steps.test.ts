@@ -75,6 +75,24 @@ describe('ramp, jump and cluster steps', () => {
     expect((r.summaries as Record<string, Record<string, unknown>>).jump.note).toBe('no "jump" events');
   });
 
+  it('warns when some jump events lack a kind (their own group "all"), and counts uncontrolled jumps', () => {
+    // blank the kind of the first three jumps; move one jump outside every trial (no matched control)
+    const jumps = rec.events.label.flatMap((l, i) => (l === 'jump' ? [i] : []));
+    const kind = rec.events.kind.map((k, i) => (jumps.slice(0, 3).includes(i) ? '' : k));
+    const time = Float64Array.from(rec.events.time);
+    time[jumps[3]] = rec.trials.stop[rec.trials.stop.length - 1] + 0.5;
+    const order = Array.from(time.keys()).sort((a, b) => time[a] - time[b]);
+    const events = { time: Float64Array.from(order, (i) => time[i]), label: order.map((i) => rec.events.label[i]), trial: Float64Array.from(order, (i) => rec.events.trial[i]), kind: order.map((i) => kind[i]) };
+    const r = analyseRecording({ ...rec, events }, DEFAULTS);
+    const missing = r.warnings.find((w) => w.code === 'jump-kind-missing')!;
+    expect(missing.count).toBe(3);
+    expect(missing.message).toBe('3 "jump" events have no kind while the others do; they are analysed as their own group (columns jump_all_*). Give every jump its kind in events.csv.');
+    expect(r.table.columns.map((c) => c.name)).toContain('jump_all');
+    const unc = r.warnings.find((w) => w.code === 'jump-uncontrolled')!;
+    expect(unc.count).toBe(1);
+    expect(unc.message).toMatch(/^1 jump had no matched control/);
+  });
+
   it('names the conditions present when the reference condition has no trials', () => {
     const other = taskSession({ nTrials: 20, standardLabel: 'A', otherConditions: [{ label: 'B', fraction: 0.5 }], units: [{ rateHz: 5, shape: 1 }], seed: 102 });
     const r = analyseRecording(other, DEFAULTS);
