@@ -65,6 +65,24 @@ export interface JumpUnitResult {
 }
 
 /**
+ * Largest sample (each side) for the exact rank-sum distribution; above it (or
+ * with ties) the normal approximation. The exact count costs about
+ * (nX + nY) nX (nX + nY)^2 / 2 steps, ~3 M at 30 + 30, run three times per unit
+ * and kind: too slow for a 1,000-unit session, where 15 + 15 costs ~0.2 M. Our choice.
+ */
+export const RANK_SUM_EXACT_MAX_N = 15;
+
+/**
+ * A change in Hz rounded to 1e-6 Hz before ranking: changes are differences
+ * of counts / window length, and equal differences computed from different
+ * counts (5/0.3 - 3/0.3 and 4/0.3 - 2/0.3) can differ in the last bit, which
+ * would break their tie at random. 1e-6 Hz is far below one spike per window.
+ */
+function snap(hz: number): number {
+  return Math.round(hz * 1e6) / 1e6;
+}
+
+/**
  * Statistics of one unit's answer to one kind of jump (issue 5).
  *
  * Effect sizes use the matched control by subtraction: each event's change
@@ -95,12 +113,12 @@ export function jumpUnit(
   let se = 0;
   let sl = 0;
   for (let e = 0; e < n; e++) {
-    early[e] = x.post[e] - x.pre[e];
-    late[e] = x.late[e] - x.pre[e];
-    decay[e] = x.post[e] - x.late[e];
-    controlled[e] = early[e] - x.controlPost[e];
+    early[e] = snap(x.post[e] - x.pre[e]);
+    late[e] = snap(x.late[e] - x.pre[e]);
+    decay[e] = snap(x.post[e] - x.late[e]);
+    controlled[e] = x.post[e] - x.pre[e] - x.controlPost[e]; // effect sizes from the unrounded changes
     se += controlled[e];
-    sl += late[e] - x.controlLate[e];
+    sl += x.late[e] - x.pre[e] - x.controlLate[e];
   }
   const deltaHz = n > 0 ? se / n : NaN;
   const lateDeltaHz = n > 0 ? sl / n : NaN;
@@ -111,8 +129,8 @@ export function jumpUnit(
   if (rankSum) {
     const refD = new Float64Array(nRef);
     test = (d, ref) => {
-      for (let k = 0; k < nRef; k++) refD[k] = ref(k);
-      const r = mannWhitney(d, refD, opts.exactMaxN);
+      for (let k = 0; k < nRef; k++) refD[k] = snap(ref(k));
+      const r = mannWhitney(d, refD, Math.min(opts.exactMaxN, RANK_SUM_EXACT_MAX_N));
       return { p: r.p, direction: r.pXGreater < r.pXLess ? 1 : r.pXLess < r.pXGreater ? -1 : 0 };
     };
   } else test = (d) => wilcoxonSignedRank(d, opts.exactMaxN);
