@@ -142,7 +142,7 @@ export function classifyJumps(recording: Recording, params: Parameters['jump']):
   // Window edges relative to each jump: pre, post (answer), late.
   const edges = Float64Array.of(params.preStartS, params.preEndS, params.postStartS, params.postEndS, params.lateStartS, params.lateEndS);
   const inWindows = new Float64Array(3);
-  const jumpOpts = { minEvents: params.minEvents, exactMaxN: params.exactMaxN, zThreshold: params.zThreshold, runBins: params.latencyRunBins };
+  const jumpOpts = { minEvents: params.minEvents, exactMaxN: params.exactMaxN, zThreshold: params.zThreshold, runBins: params.latencyRunBins, shapeTestsBelowP: params.alpha };
 
   for (let u = 0; u < nUnits; u++) {
     const st = recording.units[u].spikeTimes;

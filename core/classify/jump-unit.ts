@@ -44,7 +44,7 @@ export interface JumpUnitResult {
   readonly test: 'rank-sum' | 'signed-rank';
   /** Reference samples the rank-sum compared against (0 for signed-rank). */
   readonly nReference: number;
-  /** The same test of the late change, and of answer minus late change (decay). */
+  /** The same test of the late change, and of answer minus late change (decay); NaN when not run (opts.shapeTestsBelowP). */
   readonly lateP: number;
   readonly decayP: number;
   readonly decayDirection: number;
@@ -103,7 +103,19 @@ function snap(hz: number): number {
 export function jumpUnit(
   x: JumpUnitInput,
   window: { postStartS: number; postEndS: number; preStartS: number; preEndS: number },
-  opts: { minEvents: number; exactMaxN: number; zThreshold: number; runBins: number; direction?: number },
+  opts: {
+    minEvents: number;
+    exactMaxN: number;
+    zThreshold: number;
+    runBins: number;
+    direction?: number;
+    /**
+     * The late and decay tests only when the answer's p is below this (default: always).
+     * classifyJumps passes the FDR level: a BH q is never below its p, so a unit with
+     * p >= alpha is never called, and its shape is never asked for (lateP, decayP NaN).
+     */
+    shapeTestsBelowP?: number;
+  },
 ): JumpUnitResult {
   const n = x.pre.length;
   const early = new Float64Array(n);
@@ -135,8 +147,9 @@ export function jumpUnit(
     };
   } else test = (d) => wilcoxonSignedRank(d, opts.exactMaxN);
   const t = enough ? test(early, (k) => x.refPost[k] - x.refPre[k]) : null;
-  const tl = enough ? test(late, (k) => x.refLate[k] - x.refPre[k]) : null;
-  const td = enough ? test(decay, (k) => x.refPost[k] - x.refLate[k]) : null;
+  const shape = t !== null && t.p < (opts.shapeTestsBelowP ?? Infinity);
+  const tl = shape ? test(late, (k) => x.refLate[k] - x.refPre[k]) : null;
+  const td = shape ? test(decay, (k) => x.refPost[k] - x.refLate[k]) : null;
   const s = Math.sign(deltaHz);
   const denom = Math.abs(deltaHz) + Math.abs(lateDeltaHz);
   const transience = denom > 0 ? (s * (deltaHz - lateDeltaHz)) / denom : NaN;

@@ -38,6 +38,16 @@ describe('jumpUnit', () => {
     expect(r.decayDirection).toBe(1);
   });
 
+  it('runs the late and decay tests only below shapeTestsBelowP (classifyJumps: the FDR level)', () => {
+    const below = jumpUnit(input, window, { ...opts, shapeTestsBelowP: 0.05 });
+    expect(below.lateP).toBe(r.lateP);
+    expect(below.decayP).toBe(r.decayP);
+    const above = jumpUnit(input, window, { ...opts, shapeTestsBelowP: 1e-4 }); // p = 1.9e-4
+    expect(above.p).toBe(r.p);
+    expect(above.lateP).toBeNaN();
+    expect(above.decayP).toBeNaN();
+  });
+
   it('effect sizes are net of the matched control', () => {
     // mean (post - pre) = (3+3+3+2+3+2+2+4) / 8 / 0.3 s = 22 / 2.4 Hz, minus the control's 0.25 Hz
     expect(r.deltaHz).toBeCloseTo(22 / 2.4 - 0.25, 12);
