@@ -15,3 +15,16 @@ export function formatNumber(x: number, digits = 6): string {
   }
   return s.includes('.') ? s.replace(/\.?0+$/, '') : s;
 }
+
+/**
+ * A time in seconds on the recording clock for a text table: fixed to the
+ * microsecond (6 decimals), trailing zeros removed; NaN -> "". Significant
+ * digits would not do for absolute times: 6 of them resolve only 10 ms after
+ * 1,000 s and 0.1 s after 10,000 s, coarser than a 30 Hz sample grid.
+ */
+export function formatTimeS(t: number): string {
+  if (Number.isNaN(t)) return '';
+  if (!Number.isFinite(t)) return formatNumber(t);
+  const s = t.toFixed(6).replace(/\.?0+$/, '');
+  return s === '-0' ? '0' : s;
+}

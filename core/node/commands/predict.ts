@@ -12,7 +12,7 @@ import { readSeries } from '../../kernels/read-series';
 import { resampleLinear } from '../../kernels/resample-linear';
 import type { Kernel, SampleGrid } from '../../kernels/types';
 import { resolveParameters } from '../../resolve-parameters';
-import { formatNumber } from '../../table/format-number';
+import { formatNumber, formatTimeS } from '../../table/format-number';
 import { writeOutputFile } from '../write-output-file';
 import { parseCliArgs } from '../parse-cli-args';
 import { numberOption, rangeOption } from './option-values';
@@ -171,7 +171,7 @@ export function createPredictCommand(load: (path: string) => Promise<ImportResul
       }
       const lines: string[] = [header.join(',')];
       for (let k = 0; k < length; k++) {
-        const row = [formatNumber(t0 + k / gridRate)];
+        const row = [formatTimeS(t0 + k / gridRate)];
         for (const y of traces) row.push(formatNumber(y[k]));
         if (measured) row.push(formatNumber(measured.values[k]), formatNumber(fitted![k]));
         lines.push(row.join(','));

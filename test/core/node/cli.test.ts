@@ -13,6 +13,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 const ROOT = resolve(__dirname, '../../..');
 const CLI = join(ROOT, 'bin/tagbench.mjs');
+const DEMO = join(ROOT, 'sample-data/demo');
 const work = mkdtempSync(join(tmpdir(), 'tagbench-cli-'));
 
 interface Result { code: number; stdout: string; stderr: string }
@@ -199,4 +200,19 @@ describe('tagbench CLI: inspect and help', () => {
     expect(ih.stdout).toMatch(/^Usage: tagbench inspect <session-dir\|file\.nwb>/);
     expect(none.code).toBe(2); // no command: usage on stdout, non-zero
   });
+
+  it('ends quietly when the reader of its output stops early (| head): exit 0, nothing on stderr', async () => {
+    // a PSTH of every unit on every reward is ~1 MB of CSV; the reader takes one line and closes the pipe
+    const r = await new Promise<Result>((res) => {
+      const p = spawn('bash', ['-o', 'pipefail', '-c', `"${process.execPath}" "${CLI}" psth "${DEMO}" --unit all --event reward | head -n 1`], { cwd: work });
+      let stdout = '';
+      let stderr = '';
+      p.stdout.on('data', (d) => (stdout += d));
+      p.stderr.on('data', (d) => (stderr += d));
+      p.on('close', (code) => res({ code: code ?? -1, stdout, stderr }));
+    });
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^unit,/);
+  }, 60_000);
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { assembleTable } from '../../../core/table/assemble-table';
 import { formatDelimited } from '../../../core/table/format-delimited';
-import { formatNumber } from '../../../core/table/format-number';
+import { formatNumber, formatTimeS } from '../../../core/table/format-number';
 import type { Column } from '../../../core/table/types';
 
 const num = (name: string, v: number[]): Column => ({ name, kind: 'number', values: Float64Array.from(v), description: name });
@@ -59,5 +59,18 @@ describe('formatDelimited', () => {
     const t = assembleTable([str('unit', ['a,b', 'say "hi"']), num('n_spikes', [1, NaN])], 2);
     expect(formatDelimited(t)).toBe('unit,n_spikes\n"a,b",1\n"say ""hi""",\n');
     expect(formatDelimited(t, '\t')).toBe('unit\tn_spikes\na,b\t1\n"say ""hi"""\t\n');
+  });
+});
+
+describe('formatTimeS', () => {
+  it('writes recording times to the microsecond, trailing zeros removed', () => {
+    // 30 Hz samples two hours in keep their spacing (six significant digits would give 7200.03, 7200.07)
+    expect([0, 1, 2].map((k) => formatTimeS(7200 + k / 30))).toEqual(['7200', '7200.033333', '7200.066667']);
+    expect(formatTimeS(999.9333333333)).toBe('999.933333');
+    expect(formatTimeS(0.0000004)).toBe('0');
+    expect(formatTimeS(-0.0000004)).toBe('0');
+    expect(formatTimeS(-1.5)).toBe('-1.5');
+    expect(formatTimeS(NaN)).toBe('');
+    expect(formatTimeS(Infinity)).toBe('inf');
   });
 });
