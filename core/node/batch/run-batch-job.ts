@@ -53,7 +53,14 @@ export async function runBatchJob(job: BatchJob, onStage: (stage: string) => voi
   }
 }
 
-/** Names and sizes of the session's files (not hashed: cheap), as one key. */
+/**
+ * The desktop app's autosaved curation (tagbench-session.json in the session folder, or
+ * <file>.nwb.tagbench-session.json beside an NWB file) and its backup: tagbench's own files, not
+ * inputs, so saving a label does not make batch analyse the session again.
+ */
+const CURATION_FILE = /(^|\.)tagbench-session\.json(\.bak)?$/;
+
+/** Names and sizes of the session's files (not hashed: cheap), as one key; hidden files and curation files left out. */
 function listSession(session: string): { key: string; bytes: number } {
   if (!existsSync(session)) return { key: 'missing', bytes: 0 };
   const st = statSync(session);
@@ -61,7 +68,7 @@ function listSession(session: string): { key: string; bytes: number } {
   let bytes = 0;
   if (st.isDirectory()) {
     for (const d of readdirSync(session, { withFileTypes: true })) {
-      if (d.name.startsWith('.') || !d.isFile()) continue;
+      if (d.name.startsWith('.') || !d.isFile() || CURATION_FILE.test(d.name)) continue;
       const size = statSync(join(session, d.name)).size;
       bytes += size;
       entries.push(`${d.name}\t${size}`);

@@ -230,7 +230,7 @@ export const batchCommand: Command = {
     if (json) {
       emit({ event: 'done', ...c, units: combined.rows, seconds: Number(elapsed.toFixed(3)), table: join(outDir, 'units.csv'), summary: join(outDir, 'summary.html'), failures: failed.map((f) => ({ session: f.name, path: f.session, failure: f.failure, message: f.message })) });
     } else {
-      io.stdout(`tagbench batch: ${c.ok} analysed, ${c.skipped} unchanged (skipped), ${c.failed} failed, in ${elapsed.toFixed(1)} s; ${combined.rows} units -> ${join(outDir, 'units.csv')}, ${join(outDir, 'summary.html')}\n`);
+      io.stdout(`tagbench batch: ${c.ok} ${combineOnly ? 'collected' : 'analysed'}, ${c.skipped} unchanged (skipped), ${c.failed} failed, in ${elapsed.toFixed(1)} s; ${combined.rows} units -> ${join(outDir, 'units.csv')}, ${join(outDir, 'summary.html')}\n`);
     }
     if (failed.length) {
       io.stderr(`tagbench batch: ${failed.length} of ${results.length} session${results.length === 1 ? '' : 's'} failed:\n`);

@@ -45,7 +45,7 @@ const USAGE = [
   '  --event LABEL        also write event-locked averages of the prediction (and the measured trace)',
   '                       around every event with this label to --aligned-out FILE.csv',
   '                       (window --event-window a,b in s, default -3,2): offset_s, n, predicted_mean,',
-  '                       predicted_sem[, measured_mean, measured_sem]',
+  '                       predicted_sem[, measured_mean, measured_sem, n_measured]',
   '  --out FILE.csv       output: time_s, predicted columns (and measured, predicted_fitted)',
   '',
   'Library constants come from published half-rise / time-to-peak / half-decay values;',

@@ -66,6 +66,7 @@ describe('tagbench batch', () => {
     const r = await batch([join(dir, 'alpha'), join(dir, 'beta'), '--out', o, '--combine-only']);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/beta .*no tagbench output/);
+    expect(r.stdout).toMatch(/1 collected, 0 unchanged \(skipped\), 1 failed/);
     expect(parseCsvRecords(readFileSync(join(o, 'units.csv'), 'utf8')).slice(1).map((x) => x[0])).toEqual(['alpha', 'alpha', 'alpha']);
     expect(existsSync(join(o, 'sessions', 'beta'))).toBe(false);
   }, 120_000);
@@ -115,6 +116,16 @@ describe('tagbench batch', () => {
     expect(done).toMatchObject({ event: 'done', ok: 0, skipped: 2, failed: 0, units: 7 });
     expect(statSync(join(out, 'sessions', 'alpha', 'units.csv')).mtimeMs).toBe(before);
     expect(combinedRows().length - 1).toBe(7);
+    // the desktop app's autosaved curation (and its backup) in a session folder is not an input:
+    // the session is still skipped
+    writeFileSync(join(dir, 'beta', 'tagbench-session.json'), '{}');
+    writeFileSync(join(dir, 'beta', 'tagbench-session.json.bak'), '{}');
+    const rc = await batch([join(dir, 'beta'), '--out', out, '--workers', '0']);
+    expect(rc.stdout).toMatch(/\[1\/1\] skipped beta/);
+    // a new file in the folder is (it could be an input): the session runs again
+    writeFileSync(join(dir, 'beta', 'notes.txt'), 'x');
+    const rn = await batch([join(dir, 'beta'), '--out', out, '--workers', '0']);
+    expect(rn.stdout).toMatch(/\[1\/1\] ok beta/);
     // change one input file: that session runs again, the other is still skipped
     const spikes = join(dir, 'alpha', 'spikes.csv');
     writeFileSync(spikes, readFileSync(spikes, 'utf8') + '2,10.5\n');
