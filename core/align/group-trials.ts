@@ -10,7 +10,10 @@ import type { AlignmentSet, GroupBy, TrialGroup } from './types';
  * - covariate: a text covariate groups by value; a numeric one by bins,
  *   either explicit ascending edges (bins [e_i, e_i+1), the last closed) or
  *   nBins quantile bins (default 3; edges at the quantiles of the rows' values,
- *   linear interpolation as numpy.quantile's default). Rows without a value
+ *   linear interpolation as numpy.quantile's default); without edges, a
+ *   numeric covariate with at most nBins distinct values groups by value
+ *   ("sweep_s = 2.5"): quantile bins would merge or split such values
+ *   arbitrarily (two values, three bins: one group). Rows without a value
  *   (no trial, NaN, outside the edges) are left out of every group.
  * `order` (a permutation from orderTrials) sets the row order inside groups;
  * default time order. Empty groups are dropped.
@@ -59,9 +62,19 @@ function keyFunction(set: AlignmentSet, trials: Trials, g: GroupBy): KeyFn {
         };
       }
       const value = (i: number) => (set.trialRow[i] >= 0 ? col[set.trialRow[i]] : NaN);
+      const fmt = (x: number) => String(Number(x.toPrecision(4)));
+      if (!g.edges) {
+        const distinct = new Set<number>();
+        for (let i = 0; i < set.times.length && distinct.size <= (g.nBins ?? 3); i++) if (Number.isFinite(value(i))) distinct.add(value(i));
+        if (distinct.size <= (g.nBins ?? 3)) {
+          return (i) => {
+            const v = value(i);
+            return Number.isFinite(v) ? { label: `${g.name} = ${String(v)}`, sortKey: v } : null;
+          };
+        }
+      }
       const edges = g.edges ? [...g.edges] : quantileEdges(Array.from({ length: set.times.length }, (_, i) => value(i)), g.nBins ?? 3);
       if (g.edges) for (let k = 1; k < edges.length; k++) if (!(edges[k] > edges[k - 1])) throw new Error('groupTrials: covariate bin edges must increase strictly');
-      const fmt = (x: number) => String(Number(x.toPrecision(4)));
       return (i) => {
         const v = value(i);
         if (!Number.isFinite(v) || edges.length < 2 || v < edges[0] || v > edges[edges.length - 1]) return null;

@@ -94,11 +94,22 @@ describe('groupTrials and orderTrials', () => {
   });
   it('bins a numeric covariate at quantiles or given edges, leaving out rows without a value', () => {
     // Rewards' trials: speed 1 (trial 1), 3 (trial 2), NaN (trial 4), none (t = 50).
-    // numpy.quantile([1, 3], [0, 0.5, 1]) = [1, 2, 3] -> bins [1, 2) and [2, 3].
+    // Two distinct values, at most nBins: one group per value.
     const q = groupTrials(set, rec.trials, { by: 'covariate', name: 'speed', nBins: 2 });
     expect(q.map((x) => [x.label, [...x.rows]])).toEqual([
-      ['speed [1, 2)', [0]],
-      ['speed [2, 3]', [1]],
+      ['speed = 1', [0]],
+      ['speed = 3', [1]],
+    ]);
+    // More distinct values than bins: quantile bins. Speeds 1, 2, 3, 4:
+    // numpy.quantile([1, 2, 3, 4], [0, 0.5, 1]) = [1, 2.5, 4] -> bins [1, 2.5) and [2.5, 4].
+    const four = makeRecording({
+      trials: [1, 2, 3, 4].map((k) => ({ trial: k, start: 10 * (k - 1), stop: 10 * k, covariates: { speed: k } })),
+      events: [1, 2, 3, 4].map((k) => ({ time: 10 * k - 5, label: 'reward' })),
+    });
+    const qb = groupTrials(selectAlignment(four, { event: 'reward' }), four.trials, { by: 'covariate', name: 'speed', nBins: 2 });
+    expect(qb.map((x) => [x.label, [...x.rows]])).toEqual([
+      ['speed [1, 2.5)', [0, 1]],
+      ['speed [2.5, 4]', [2, 3]],
     ]);
     const e = groupTrials(set, rec.trials, { by: 'covariate', name: 'speed', edges: [0, 1.5, 10] });
     expect(e.map((x) => [x.label, [...x.rows]])).toEqual([
