@@ -20,6 +20,8 @@ export interface ReadSeriesOptions {
   /** CSV column names (defaults "time" and "value"). */
   readonly timeColumn?: string;
   readonly valueColumn?: string;
+  /** How the caller lets the user give the rate, for messages (e.g. "--measured-rate HZ"; default "the sample rate"). */
+  readonly rateName?: string;
 }
 
 /**
@@ -77,12 +79,12 @@ export function readSeries(bytes: Uint8Array, file: string, o: ReadSeriesOptions
     values = tab.numbers.get(vName)!;
     if (useTime) times = tab.numbers.get(timeName)!;
     if (!useTime && rate === undefined) {
-      throw new InputError({ file, problem: `no "${timeName}" column and no sample rate`, fix: 'add a time column in seconds, or give the sample rate' });
+      throw new InputError({ file, problem: `no "${timeName}" column and no sample rate`, fix: `add a time column in seconds, or give ${o.rateName ?? 'the sample rate'}` });
     }
     if (times) checkTimes(times, file, (i) => tab.rowOf(i));
   }
   if (!times) {
-    if (rate === undefined) throw new InputError({ file, problem: 'a 1-D .npy file has no times', fix: 'give the sample rate (and start time), or save an N x 2 array of (time, value)' });
+    if (rate === undefined) throw new InputError({ file, problem: 'a 1-D .npy file has no times', fix: `give ${o.rateName ?? 'the sample rate (and start time)'}, or save an N x 2 array of (time, value)` });
     const t0 = o.startS ?? 0;
     times = Float64Array.from({ length: values.length }, (_, i) => t0 + i / rate);
     return { times, values, rateHz: rate };

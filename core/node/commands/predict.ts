@@ -105,6 +105,7 @@ export function createPredictCommand(load: (path: string) => Promise<ImportResul
           ...(opt('--measured-rate') ? { rateHz: numberOption(opt('--measured-rate')!, '--measured-rate', NAME) } : {}),
           ...(opt('--measured-start') ? { startS: numberOption(opt('--measured-start')!, '--measured-start', NAME) } : {}),
           ...(opt('--measured-column') ? { valueColumn: opt('--measured-column')! } : {}),
+          rateName: '--measured-rate HZ (and --measured-start S)',
         });
         if (series.times.length < 3) throw new InputError({ file, problem: 'the measured trace needs at least 3 samples' });
       }
@@ -199,7 +200,7 @@ function buildKernel(opt: (k: string) => string | undefined, fallback: string): 
   if (amp !== undefined && !(amp > 0)) throw new InputError({ file: where, column: '--amplitude', value: opt('--amplitude')!, problem: 'the single-spike amplitude must be positive' });
   const file = opt('--kernel-file');
   if (file) {
-    const s = readSeries(readBytes(file), basename(file), opt('--kernel-rate') ? { rateHz: numberOption(opt('--kernel-rate')!, '--kernel-rate', NAME) } : {});
+    const s = readSeries(readBytes(file), basename(file), { ...(opt('--kernel-rate') ? { rateHz: numberOption(opt('--kernel-rate')!, '--kernel-rate', NAME) } : {}), rateName: '--kernel-rate HZ' });
     if (!Number.isFinite(s.rateHz)) throw new InputError({ file, column: 'time', problem: 'a sampled kernel must be evenly sampled', fix: 'resample it, or give --kernel-rate for a value-only file' });
     let peak = 0;
     for (const v of s.values) if (Math.abs(v) > Math.abs(peak)) peak = v;

@@ -36,6 +36,7 @@ export function makeReportCommand(deps: SessionCommandDeps): Command {
       if (positionals.length !== 1) throw new InputError({ file: 'tagbench report', problem: 'give exactly one session file or data source', fix: 'see "tagbench report --help"' });
       const out = options['--out'];
       if (!out) throw new InputError({ file: 'tagbench report', problem: 'say where to write with --out <report.html>' });
+      if (!/\.html?$/i.test(out)) throw new InputError({ file: 'tagbench report', column: '--out', value: out, problem: 'the report is one HTML file: its name should end in .html', fix: 'e.g. --out report.html' });
       const outAbs = resolve(out);
       if (!existsSync(dirname(outAbs))) throw new InputError({ file: out, problem: `the folder ${dirname(outAbs)} does not exist`, fix: 'create it first or choose another --out' });
       const opened = await openSession(positionals[0], deps.importSource, { allowChangedInputs: flags.has('--allow-changed-inputs') });

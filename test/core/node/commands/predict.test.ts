@@ -1,4 +1,5 @@
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { encodeNpy } from '../../../../core/io/encode-npy';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -101,5 +102,15 @@ describe('tagbench predict', () => {
   ])('rejects bad input with a clear message: %s', async (argv, msg) => {
     await expect(cmd.run([...argv], captureIo())).rejects.toThrow(InputError);
     await expect(cmd.run([...argv], captureIo())).rejects.toThrow(msg);
+  });
+  it('names the option that gives the sample rate of a trace or kernel without times', async () => {
+    const m1 = join(dir, 'one-d.npy');
+    writeFileSync(m1, encodeNpy(Float64Array.from({ length: 50 }, (_, k) => Math.sin(k))));
+    await expect(cmd.run(['demo', '--kernel', 'GCaMP6f', '--measured', m1, '--out', join(dir, 'm.csv')], captureIo())).rejects.toThrow(
+      /one-d\.npy: a 1-D \.npy file has no times\. Give --measured-rate HZ \(and --measured-start S\), or save an N x 2 array/,
+    );
+    const k1 = join(dir, 'kernel.csv');
+    writeFileSync(k1, 'value\n0\n1\n0.5\n');
+    await expect(cmd.run(['demo', '--kernel-file', k1, '--out', join(dir, 'k.csv')], captureIo())).rejects.toThrow(/kernel\.csv: no "time" column and no sample rate\. Add a time column in seconds, or give --kernel-rate HZ/);
   });
 });

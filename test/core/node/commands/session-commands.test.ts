@@ -162,8 +162,13 @@ describe('curate, export and report on a simulated session (demo scenario)', () 
   it('never writes into the input folder', async () => {
     const deps = testDeps(rec);
     await expect(makeExportCommand(deps).run([join(root, 'demo.session.json'), '--out', join(data, 'out')], captureIo())).rejects.toThrow(/lies inside the input session folder/);
-    await expect(makeReportCommand(deps).run([join(root, 'demo.session.json'), '--out', join(data, 'spikes.csv')], captureIo())).rejects.toThrow(/lies inside the input session folder/);
+    await expect(makeReportCommand(deps).run([join(root, 'demo.session.json'), '--out', join(data, 'report.html')], captureIo())).rejects.toThrow(/lies inside the input session folder/);
+    // an input file's name is refused before anything else: a report is an .html file
+    await expect(makeReportCommand(deps).run([join(root, 'demo.session.json'), '--out', join(data, 'spikes.csv')], captureIo())).rejects.toThrow(/--out.*should end in \.html/);
+    await expect(makeReportCommand(deps).run([join(root, 'demo.session.json'), '--out', join(root, 'report.pdf')], captureIo())).rejects.toThrow(/the report is one HTML file/);
     expect(readFileSync(join(data, 'spikes.csv'), 'utf8')).toBe('unit,time\n1,0.5\n');
+    expect(existsSync(join(data, 'report.html'))).toBe(false);
+    expect(existsSync(join(root, 'report.pdf'))).toBe(false);
   });
 
   it('writes a self-contained report with escaped text and the figure data', async () => {
