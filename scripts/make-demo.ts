@@ -1,6 +1,6 @@
 /**
  * Writes the bundled demo session, deterministically from a fixed seed:
- *   sample-data/demo/          the session folder (CSV form, DESIGN.md section 3)
+ *   sample-data/demo/          the session folder (CSV form, README "Input formats")
  *   sample-data/demo-truth.csv what the simulator put into every unit
  *   sample-data/README.md      how it was made and what a run should show
  * Run: npm run demo  (optional: --seed N --out DIR, for other sessions of
@@ -111,7 +111,7 @@ export function demoReadme(sim: SimulatedSession, seed: number, session: readonl
   L.push('These are the simulated truths. The analyses are statistical screens: a weak or late simulated responder can');
   L.push('honestly come out `borderline` or `untagged`, and noise can make a flat unit look like a weak ramp.');
   L.push('');
-  L.push('Light (test window and identified rule of DESIGN.md section 4):');
+  L.push('Light (the default test window and identification rule, README "Light identification"):');
   L.push('');
   L.push(`- **Direct (light-identified)**: ${ids(direct)}. Nominal latency / jitter / reliability on single pulses:`);
   for (const t of direct) L.push(`  - unit ${t.unit}: ${f1(t.latencyMs)} ms / ${f1(t.jitterMs)} ms / ${f2(t.reliability)}, spontaneous ${f1(t.rateHz)} Hz`);
