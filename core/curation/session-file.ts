@@ -7,6 +7,12 @@ export const SESSION_FORMAT = 'tagbench-session';
 export const SESSION_SCHEMA_VERSION = 1;
 
 /**
+ * Name of the session file the desktop app saves inside a session folder (beside an NWB file:
+ * `<file>.nwb.` + this name), and offers in its exports. batch does not count it as an input.
+ */
+export const SAVED_SESSION_FILE = 'tagbench-session.json';
+
+/**
  * The session file (JSON, schema version 1): what a person needs to reopen
  * their work and get the same table back.
  *

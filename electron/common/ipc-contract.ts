@@ -13,6 +13,7 @@
  * file name relative to what the user picked, and main refuses anything that
  * would leave it.
  */
+import { SAVED_SESSION_FILE } from '../../core/curation/session-file';
 
 /** A result that crosses the bridge. */
 export type IpcResult<T> = { readonly ok: true; readonly value: T } | { readonly ok: false; readonly error: string };
@@ -116,4 +117,4 @@ export interface TagbenchBridge {
 }
 
 /** File name of the session file (curation and parameters) saved inside a session folder, or beside an NWB file. */
-export const SAVED_STATE_FILE = 'tagbench-session.json';
+export const SAVED_STATE_FILE = SAVED_SESSION_FILE;

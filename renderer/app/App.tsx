@@ -5,7 +5,7 @@ import { describeInputMismatch } from '../../core/curation/describe-input-mismat
 import { historyDispatch, historyRedo, historyUndo, newHistory, type CurationHistory } from '../../core/curation/history';
 import { checkCurationAction } from '../../core/curation/check-curation-action';
 import { serializeSessionFile } from '../../core/curation/serialize-session-file';
-import { SESSION_FORMAT, SESSION_SCHEMA_VERSION } from '../../core/curation/session-file';
+import { SAVED_SESSION_FILE, SESSION_FORMAT, SESSION_SCHEMA_VERSION } from '../../core/curation/session-file';
 import { EMPTY_CURATION } from '../../core/curation/types';
 import { validateSessionFile } from '../../core/curation/validate-session-file';
 import { isInputError } from '../../core/errors';
@@ -56,7 +56,7 @@ export function curatorName(): string {
 }
 
 /** File name of the session file (curation and settings) in exports and beside a desktop session. */
-export const SESSION_FILE_NAME = 'tagbench-session.json';
+export const SESSION_FILE_NAME = SAVED_SESSION_FILE;
 
 export function eventViewOf(p: Parameters): EventView {
   const { event, windowStartS, windowStopS, binMs, smoothing, smoothingWidthMs, groupBy } = p.align;

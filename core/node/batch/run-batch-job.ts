@@ -15,6 +15,7 @@ import { createHash } from 'node:crypto';
 import { createReadStream, existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import type { BatchJob, BatchJobResult } from '../../batch/types';
+import { SAVED_SESSION_FILE } from '../../curation/session-file';
 import { isInputError } from '../../errors';
 import { runCommand } from '../commands/run';
 
@@ -54,11 +55,14 @@ export async function runBatchJob(job: BatchJob, onStage: (stage: string) => voi
 }
 
 /**
- * The desktop app's autosaved curation (tagbench-session.json in the session folder, or
- * <file>.nwb.tagbench-session.json beside an NWB file) and its backup: tagbench's own files, not
+ * The desktop app's autosaved curation (SAVED_SESSION_FILE in the session folder, or
+ * <file>.nwb.<that name> beside an NWB file) and its backup (.bak): tagbench's own files, not
  * inputs, so saving a label does not make batch analyse the session again.
  */
-const CURATION_FILE = /(^|\.)tagbench-session\.json(\.bak)?$/;
+function isCurationFile(name: string): boolean {
+  const base = name.endsWith('.bak') ? name.slice(0, -4) : name;
+  return base === SAVED_SESSION_FILE || base.endsWith(`.${SAVED_SESSION_FILE}`);
+}
 
 /** Names and sizes of the session's files (not hashed: cheap), as one key; hidden files and curation files left out. */
 function listSession(session: string): { key: string; bytes: number } {
@@ -68,7 +72,7 @@ function listSession(session: string): { key: string; bytes: number } {
   let bytes = 0;
   if (st.isDirectory()) {
     for (const d of readdirSync(session, { withFileTypes: true })) {
-      if (d.name.startsWith('.') || !d.isFile() || CURATION_FILE.test(d.name)) continue;
+      if (d.name.startsWith('.') || !d.isFile() || isCurationFile(d.name)) continue;
       const size = statSync(join(session, d.name)).size;
       bytes += size;
       entries.push(`${d.name}\t${size}`);
