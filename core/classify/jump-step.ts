@@ -51,6 +51,8 @@ export const jumpStep: AnalysisStep = {
       }
     }
     const uncontrolled = r.kinds.reduce((s, k) => s + k.nEvents - k.nControlled, 0);
+    // Some jump events carry a kind and some do not: the unkinded ones form their own group "all".
+    const unkinded = r.kinds.length > 1 ? r.kinds.find((k) => k.kind === '') : undefined;
     return {
       columns,
       summary: {
@@ -79,12 +81,11 @@ export const jumpStep: AnalysisStep = {
               count: uncontrolled,
             }]
           : []),
-        // Some jump events carry a kind and some do not: the unkinded ones form their own group "all".
-        ...(r.kinds.length > 1 && r.kinds.some((k) => k.kind === '')
+        ...(unkinded
           ? [{
               code: 'jump-kind-missing',
-              message: `${r.kinds.find((k) => k.kind === '')!.nEvents} "${jp.event}" events have no kind while the others do; they are analysed as their own group (columns jump_all_*). Give every jump its kind in events.csv.`,
-              count: r.kinds.find((k) => k.kind === '')!.nEvents,
+              message: `${unkinded.nEvents} "${jp.event}" events have no kind while the others do; they are analysed as their own group (columns jump_all_*). Give every jump its kind in events.csv.`,
+              count: unkinded.nEvents,
             }]
           : []),
       ],
