@@ -35,7 +35,7 @@ import { nodeSha256 } from './node-sha256';
 import { threadHasher } from './thread-hasher';
 import type { Worker } from 'node:worker_threads';
 
-/** loadSession's options: the importer's, and a thread to hash large files of a session folder on. */
+/** loadSession's options: the importer's, and a thread that helps import a session folder. */
 export interface LoadOptions extends ImportOptions {
   /**
    * A worker running core/node/run-steps-worker.ts (e.g. startSpareThread's)
